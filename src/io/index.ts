@@ -1,0 +1,2 @@
+export * from './atomicWrite.js';
+export * from './yamlFile.js';

@@ -1,0 +1,4 @@
+export * from './constants.js';
+export * from './fourVector.js';
+export * from './phaseSpace.js';
+export * from './random.js';
