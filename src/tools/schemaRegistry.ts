@@ -1,0 +1,18 @@
+/**
+ * The YAML formats whose JSON Schemas live in the project's `shared/` folder.
+ * Each entry gives the file name and a loader for its zod schema; add a line
+ * when a new format appears. `npm run schemas` writes them; a test checks that
+ * the committed files are up to date.
+ */
+import type { z } from 'zod';
+
+export interface SchemaEntry {
+  /** File name under shared/, e.g. `model.schema.json`. */
+  file: string;
+  title: string;
+  description: string;
+  load: () => Promise<z.ZodType>;
+}
+
+export const SCHEMAS: readonly SchemaEntry[] = [
+];
