@@ -1,0 +1,39 @@
+/**
+ * Per-event variable values, computed lazily: a variable is computed the
+ * first time a cut asks for it in an event and cached until the next event,
+ * so an event that fails an early step never pays for pair masses.
+ */
+import type { VariableReader } from './expression/compile.js';
+import type { AnalysisObjects } from './objects.js';
+import { VARIABLES } from './variables.js';
+
+const COMPUTE = VARIABLES.map((v) => v.compute);
+
+export class EventVariables implements VariableReader {
+  readonly objects: AnalysisObjects;
+  private readonly values = new Float64Array(VARIABLES.length);
+  private readonly stamp = new Uint32Array(VARIABLES.length);
+  private epoch = 1;
+
+  constructor(objects: AnalysisObjects) {
+    this.objects = objects;
+  }
+
+  /** Forgets the cached values: call after `objects.build(event)`. */
+  nextEvent(): void {
+    this.epoch = (this.epoch + 1) >>> 0;
+    if (this.epoch === 0) {
+      this.stamp.fill(0);
+      this.epoch = 1;
+    }
+  }
+
+  /** Value of the variable in `slot` (index in `VARIABLES`) for the current event. */
+  value(slot: number): number {
+    if (this.stamp[slot] !== this.epoch) {
+      this.values[slot] = COMPUTE[slot]!(this.objects);
+      this.stamp[slot] = this.epoch;
+    }
+    return this.values[slot]!;
+  }
+}
