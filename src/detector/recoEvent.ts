@@ -60,6 +60,27 @@ export class ObjectList {
     return i;
   }
 
+  /**
+   * Appends an object whose pT, eta and phi the caller already computed (the
+   * detector's fast path: smearing scales the momentum and keeps the direction).
+   */
+  addMeasured(px: number, py: number, pz: number, e: number, pt: number, eta: number, phi: number, charge: number, tag: number, truthId: number): number {
+    if (this.size === this.capacity) this.grow();
+    const i = this.size++;
+    const o = 4 * i;
+    this.momentum[o] = px;
+    this.momentum[o + 1] = py;
+    this.momentum[o + 2] = pz;
+    this.momentum[o + 3] = e;
+    this.pt[i] = pt;
+    this.eta[i] = eta;
+    this.phi[i] = phi;
+    this.charge[i] = charge;
+    this.tag[i] = tag;
+    this.truthId[i] = truthId;
+    return i;
+  }
+
   /** Sorts the objects by decreasing pT (insertion sort: lists are short). */
   sortByPt(): void {
     for (let i = 1; i < this.size; i++) {

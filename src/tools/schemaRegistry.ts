@@ -15,4 +15,5 @@ export interface SchemaEntry {
 }
 
 export const SCHEMAS: readonly SchemaEntry[] = [
+  { file: 'detector.schema.json', title: 'tamis detector profile', description: 'A parametrised detector response for one collider era (analyses/detectors/*.yaml).', load: async () => (await import('../detector/profile/schema.js')).DetectorProfileSchema },
 ];

@@ -1,0 +1,60 @@
+/**
+ * How the detector sees each final-state particle, by PDG id (PDG Monte Carlo
+ * particle numbering scheme, Review of Particle Physics): invisible, electron,
+ * muon, parton (becomes a jet), photon, hadron, or a particle that should have
+ * been decayed before reaching the detector.
+ */
+
+export const KIND_UNKNOWN = 0;
+export const KIND_INVISIBLE = 1;
+export const KIND_ELECTRON = 2;
+export const KIND_MUON = 3;
+/** Quarks d, u, s, c, b and the gluon: each becomes a calorimeter deposit and then a jet. */
+export const KIND_PARTON = 4;
+export const KIND_PHOTON = 5;
+/** Mesons and baryons: part of a tau's visible system when a tau is among their ancestors, else a calorimeter deposit. */
+export const KIND_HADRON = 6;
+/** Top, tau, W, Z and Higgs bosons: the generator decays them; finding one in the final state is an input error. */
+export const KIND_UNDECAYED = 7;
+
+/** Jet flavour labels, in increasing precedence when deposits merge into one jet. */
+export const FLAVOUR_LIGHT = 0;
+export const FLAVOUR_TAU = 1;
+export const FLAVOUR_CHARM = 2;
+export const FLAVOUR_BOTTOM = 3;
+
+const SMALL_ID_KINDS = new Uint8Array(1000);
+for (const id of [12, 14, 16]) SMALL_ID_KINDS[id] = KIND_INVISIBLE;
+SMALL_ID_KINDS[11] = KIND_ELECTRON;
+SMALL_ID_KINDS[13] = KIND_MUON;
+for (const id of [1, 2, 3, 4, 5, 21]) SMALL_ID_KINDS[id] = KIND_PARTON;
+SMALL_ID_KINDS[22] = KIND_PHOTON;
+for (const id of [6, 15, 23, 24, 25]) SMALL_ID_KINDS[id] = KIND_UNDECAYED;
+// Two- and three-digit ids from 100 up are mesons in the PDG scheme.
+for (let id = 100; id < 1000; id++) SMALL_ID_KINDS[id] = KIND_HADRON;
+
+/**
+ * Stable neutral particles of common new-physics models that escape the detector:
+ * sneutrinos (1000012, 1000014, 1000016), the lightest neutralino (1000022) and
+ * the gravitino (1000039), in the PDG numbering of supersymmetric particles.
+ */
+const INVISIBLE_NEW_PARTICLES = new Set([1000012, 1000014, 1000016, 1000022, 1000039]);
+
+/**
+ * The detector kind of a particle with |PDG id| = `absId`.
+ *
+ * @example
+ * particleKind(5) === KIND_PARTON // true
+ */
+export function particleKind(absId: number): number {
+  if (absId < 1000) return SMALL_ID_KINDS[absId]!;
+  if (INVISIBLE_NEW_PARTICLES.has(absId)) return KIND_INVISIBLE;
+  // Four-digit ids (and the excited states 10000-999999 with the same last digits) are hadrons.
+  if (absId < 1_000_000) return KIND_HADRON;
+  return KIND_UNKNOWN;
+}
+
+/** Jet flavour of a parton: b, c or light (d, u, s, g). */
+export function partonFlavour(absId: number): number {
+  return absId === 5 ? FLAVOUR_BOTTOM : absId === 4 ? FLAVOUR_CHARM : FLAVOUR_LIGHT;
+}
