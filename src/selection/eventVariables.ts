@@ -3,8 +3,10 @@
  * first time a cut asks for it in an event and cached until the next event,
  * so an event that fails an early step never pays for pair masses.
  */
+import type { RecoEvent } from '../detector/recoEvent.js';
 import type { VariableReader } from './expression/compile.js';
-import type { AnalysisObjects } from './objects.js';
+import { OBJECT_DEFAULTS } from './objectDefaults.js';
+import { AnalysisObjects, type ObjectDefinitions } from './objects.js';
 import { VARIABLES } from './variables.js';
 
 const COMPUTE = VARIABLES.map((v) => v.compute);
@@ -36,4 +38,22 @@ export class EventVariables implements VariableReader {
     }
     return this.values[slot]!;
   }
+}
+
+/**
+ * Every variable of one reconstructed event, by name: the friendly facade
+ * for scripts, tests and debugging (the engine uses `EventVariables`).
+ *
+ * @example
+ * variablesOfEvent(event).n_leptons // 3
+ */
+export function variablesOfEvent(event: RecoEvent, definitions: ObjectDefinitions = OBJECT_DEFAULTS): Record<string, number> {
+  const objects = new AnalysisObjects(definitions);
+  objects.build(event);
+  const reader = new EventVariables(objects);
+  const out: Record<string, number> = {};
+  VARIABLES.forEach((v, slot) => {
+    out[v.name] = reader.value(slot);
+  });
+  return out;
 }
