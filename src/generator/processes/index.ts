@@ -1,0 +1,3 @@
+export { PairMatrixElement, type QuarkType } from './pairMatrixElement.js';
+export { scalarPairCoefficients } from './scalarPair.js';
+export { fermionPairCoefficients } from './fermionPair.js';
