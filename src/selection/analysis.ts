@@ -61,7 +61,11 @@ export interface Analysis {
   energyTev: number;
   /** Integrated luminosity, fb^-1. */
   luminosityIfb: number;
-  /** Detector profile file, resolved against the analysis file's folder. */
+  /**
+   * Detector profile: the file, resolved against the analysis file's folder
+   * (for a shipped profile named in the file, its path in analyses/detectors/);
+   * loaded without file checks, a shipped profile's name as written.
+   */
   detectorFile: string;
   objects: ObjectDefinitions;
   steps: SelectionStep[];

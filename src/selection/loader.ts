@@ -7,6 +7,8 @@
  */
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
+import { builtInDetectorFolder, builtInDetectorProfileNames } from '../detector/profile/builtInProfiles.js';
+import { loadDetectorProfile } from '../detector/profile/loader.js';
 import { TamisError } from '../errors.js';
 import { editDistance, parseYamlText, readTextFile, type KeyPath, type YamlSource } from '../io/yamlFile.js';
 import type { Analysis, Cut, SignalRegion } from './analysis.js';
@@ -81,6 +83,30 @@ function checkFileExists(src: Source, path: KeyPath, written: string, what: stri
   if (!existsSync(resolved)) fail(src, path, `${what} not found: ${resolved}`, 'paths are relative to the folder of the analysis file');
   if (!statSync(resolved).isFile()) fail(src, path, `${what} is not a file: ${resolved}`);
   return resolved;
+}
+
+/**
+ * The detector profile of the analysis: a `.yaml` path relative to the
+ * analysis file, or the name of a profile shipped in analyses/detectors/.
+ * With `checkFiles`, the profile is loaded (its own errors point into it) and
+ * its collider energy must match the analysis's.
+ */
+function resolveDetector(src: Source, checkFiles: boolean): string {
+  const written = src.data.detector;
+  const isPath = /\.ya?ml$/.test(written);
+  if (!checkFiles) return isPath ? resolve(dirname(src.file), written) : written;
+  let path: string;
+  if (isPath) path = checkFileExists(src, ['detector'], written, 'detector profile');
+  else {
+    const names = builtInDetectorProfileNames();
+    if (!names.includes(written)) fail(src, ['detector'], `unknown detector profile "${written}"`, `shipped profiles: ${names.join(', ')}; or give a path ending in .yaml, relative to the analysis file`);
+    path = join(builtInDetectorFolder(), `${written}.yaml`);
+  }
+  const profile = loadDetectorProfile(path);
+  if (Math.abs(profile.colliderEnergyTev - src.data.energy_tev) > 1e-9) {
+    fail(src, ['detector'], `detector profile "${profile.name}" is for ${profile.colliderEnergyTev} TeV but the analysis is at ${src.data.energy_tev} TeV`, 'use a profile of the same collider era');
+  }
+  return path;
 }
 
 function resolveRegions(src: Source): SignalRegion[] {
@@ -167,7 +193,7 @@ export function parseAnalysis(text: string, file: string, options: LoadOptions =
   const regions = resolveRegions(src);
   const regionNames = new Set(regions.map((r) => r.name));
   checkCorrelationGroups(src, regionNames);
-  const detectorFile = checkFiles ? checkFileExists(src, ['detector'], d.detector, 'detector profile') : resolve(dirname(file), d.detector);
+  const detectorFile = resolveDetector(src, checkFiles);
   const analysis: Analysis = {
     id: d.id,
     summary: d.summary,
