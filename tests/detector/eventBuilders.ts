@@ -35,7 +35,8 @@ export function zToLeptons(record: EventRecord, lepton: number, eta1 = 0.3, eta2
 /** A hadronic tau: tau (status 2) -> visible hadron `visibleId` + nu_tau, with the visible system at (pt, eta, phi). */
 export function addHadronicTau(record: EventRecord, tauId: number, pt: number, eta: number, phi: number, visibleId = 211): number {
   const tau = addParticle(record, tauId, STATUS_DECAYED, 0, 1.3 * pt, eta, phi, M_TAU);
-  addParticle(record, Math.sign(tauId) * Math.abs(visibleId), STATUS_FINAL, tau, pt, eta, phi, 0.14);
+  // tau- (PDG 15) -> h- nu_tau: the visible hadron has the tau's charge, the neutrino its lepton number.
+  addParticle(record, -Math.sign(tauId) * Math.abs(visibleId), STATUS_FINAL, tau, pt, eta, phi, 0.14);
   addParticle(record, Math.sign(tauId) * 16, STATUS_FINAL, tau, 0.3 * pt, eta, phi);
   return tau;
 }
