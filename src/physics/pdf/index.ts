@@ -1,0 +1,25 @@
+/** Parton densities: the built-in LO toy densities, user CSV grids, luminosities. */
+export { lesHouchesToyDensities, buildLesHouchesGrid, lesHouchesGridNodes, LES_HOUCHES_GRID_LAYOUT, LES_HOUCHES_DENSITY_NAME } from './lesHouchesGrid.js';
+export type { LesHouchesGridLayout } from './lesHouchesGrid.js';
+export { lesHouchesXfDirect, lesHouchesEvolutionSetup, LES_HOUCHES_CONTOUR_BANDS, LES_HOUCHES_X_TOP } from './lesHouchesEvolution.js';
+export { LES_HOUCHES_INPUT, LES_HOUCHES_MU0_SQUARED, lesHouchesInputXf, lesHouchesInputMoment, powerTermMoment } from './lesHouchesInput.js';
+export type { PowerTerm } from './lesHouchesInput.js';
+export { InterpolatedDensityGrid, thresholdRowOf } from './densityGrid.js';
+export type { DensityGridData } from './densityGrid.js';
+export { readDensityGridCsv, parseDensityGridCsv, formatDensityGridCsv, writeDensityGridCsv } from './csvGrid.js';
+export type { CsvGridOptions } from './csvGrid.js';
+export { partonLuminosity } from './luminosity.js';
+export type { LuminosityQuadrature } from './luminosity.js';
+export { densityTable, formatDensityTable } from './densityTable.js';
+export type { DensityTableRow } from './densityTable.js';
+export { FLAVOUR_KEYS, COLUMN_COUNT, COLUMN_PDG_IDS, columnOfFlavour } from './flavours.js';
+export type { FlavourKey } from './flavours.js';
+export { evolveMoments, heavyQuarkOnsetMoments, MOMENT_VECTOR_LENGTH } from './mellinEvolution.js';
+export type { EvolutionSetup } from './mellinEvolution.js';
+export { tabulateByMellinInversion } from './mellinTabulation.js';
+export type { ContourBand, MomentSource } from './mellinTabulation.js';
+export { mellinContour, invertMellin } from './mellinInversion.js';
+export type { ContourShape, MellinContour } from './mellinInversion.js';
+export { loSplittingMoments, C_A, C_F } from './splittingMoments.js';
+export { gaussLegendre, integrateGaussLegendre } from './gaussLegendre.js';
+export type { QuadratureRule } from './gaussLegendre.js';
