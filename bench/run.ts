@@ -8,6 +8,7 @@ import type { Benchmark } from './benchmark.js';
 /** Suites in the order they print. Each later part of tamis adds its own. */
 const SUITES: readonly (() => Promise<{ benchmarks: Benchmark[] }>)[] = [
   () => import('./physics.js'),
+  () => import('./detector.js'),
 ];
 
 function formatValue(value: number): string {
