@@ -102,11 +102,25 @@ function resolveDetector(src: Source, checkFiles: boolean): string {
     if (!names.includes(written)) fail(src, ['detector'], `unknown detector profile "${written}"`, `shipped profiles: ${names.join(', ')}; or give a path ending in .yaml, relative to the analysis file`);
     path = join(builtInDetectorFolder(), `${written}.yaml`);
   }
-  const profile = loadDetectorProfile(path);
-  if (Math.abs(profile.colliderEnergyTev - src.data.energy_tev) > 1e-9) {
-    fail(src, ['detector'], `detector profile "${profile.name}" is for ${profile.colliderEnergyTev} TeV but the analysis is at ${src.data.energy_tev} TeV`, 'use a profile of the same collider era');
+  const profile = profileSummary(path);
+  if (Math.abs(profile.energyTev - src.data.energy_tev) > 1e-9) {
+    fail(src, ['detector'], `detector profile "${profile.name}" is for ${profile.energyTev} TeV but the analysis is at ${src.data.energy_tev} TeV`, 'use a profile of the same collider era');
   }
   return path;
+}
+
+/** Name and energy of validated profiles, by path, size and modification time: many analyses share one profile. */
+const profileCache = new Map<string, { stamp: string; name: string; energyTev: number }>();
+
+function profileSummary(path: string): { name: string; energyTev: number } {
+  const stat = statSync(path);
+  const stamp = `${stat.size}:${stat.mtimeMs}`;
+  const cached = profileCache.get(path);
+  if (cached !== undefined && cached.stamp === stamp) return cached;
+  const profile = loadDetectorProfile(path);
+  const summary = { stamp, name: profile.name, energyTev: profile.colliderEnergyTev };
+  profileCache.set(path, summary);
+  return summary;
 }
 
 function resolveRegions(src: Source): SignalRegion[] {
