@@ -15,5 +15,6 @@ export interface SchemaEntry {
 }
 
 export const SCHEMAS: readonly SchemaEntry[] = [
+  { file: 'analysis.schema.json', title: 'tamis analysis', description: 'A search re-implemented for tamis: objects, selection steps, signal regions with published yields (analyses/*.yaml; format in analyses/README.md).', load: async () => (await import('../selection/schema.js')).AnalysisFileSchema },
   { file: 'detector.schema.json', title: 'tamis detector profile', description: 'A parametrised detector response for one collider era (analyses/detectors/*.yaml).', load: async () => (await import('../detector/profile/schema.js')).DetectorProfileSchema },
 ];
