@@ -10,6 +10,7 @@ import type { CommandModule } from './command.js';
 
 /** Command modules, in the order `tamis --help` lists them. Imported lazily. */
 const COMMANDS: readonly (() => Promise<CommandModule>)[] = [
+  () => import('./commands/pdf.js'),
 ];
 
 /** Builds the program with every command registered (exported for tests and docs). */
