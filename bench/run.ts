@@ -9,6 +9,7 @@ import type { Benchmark } from './benchmark.js';
 const SUITES: readonly (() => Promise<{ benchmarks: Benchmark[] }>)[] = [
   () => import('./physics.js'),
   () => import('./detector.js'),
+  () => import('./pdf.js'),
 ];
 
 function formatValue(value: number): string {
