@@ -35,7 +35,7 @@ export function beta0(nf: number): number {
  * `alphaS(q)` costs one logarithm.
  *
  * @example
- * lesHouchesAlphaS.alphaS(100) // 0.12230553... (checks.md: 0.1223055)
+ * lesHouchesAlphaS.alphaS(100) // 0.12230552 (checks.md section 1: 0.1223055)
  */
 export class OneLoopAlphaS {
   readonly settings: OneLoopAlphaSSettings;
@@ -154,7 +154,7 @@ export const LES_HOUCHES_ALPHA_S_SETTINGS: OneLoopAlphaSSettings = {
  * The coupling that goes with the built-in toy densities (the benchmark's own settings).
  *
  * @example
- * lesHouchesAlphaS.alphaS(100) // 0.1223055 (checks.md section 1)
+ * lesHouchesAlphaS.alphaSAtQ2(1e4) // 0.12230552
  */
 export const lesHouchesAlphaS = new OneLoopAlphaS(LES_HOUCHES_ALPHA_S_SETTINGS);
 

@@ -8,7 +8,7 @@
 export interface PartonDensity {
   /** Short description for reports, e.g. "LO toy densities (Les Houches 2001 benchmark input)". */
   readonly name: string;
-  /** x f(x, Q) for one flavour at momentum fraction x and factorisation scale Q (GeV). Zero outside the grid's x range. */
+  /** x f(x, Q) for one flavour at momentum fraction x and factorisation scale Q (GeV). Zero for x >= 1; below xMin the built-in grids continue as a power law; Q outside [qMin, qMax] is clamped. */
   xfx(flavour: number, x: number, q: number): number;
   /**
    * x f(x, Q) for all flavours at once, written to `out[flavour + 6]` for

@@ -54,11 +54,12 @@ export function thresholdRowOf(values: Float64Array, nx: number, nq: number): nu
 }
 
 /**
- * A PartonDensity backed by a grid.
+ * A PartonDensity backed by a grid. Built by `lesHouchesToyDensities()` and
+ * `readDensityGridCsv(file)`; one instance is not re-entrant (it keeps its stencils),
+ * which is fine in one thread (each worker thread builds its own).
  *
  * @example
- * const grid = new InterpolatedDensityGrid('my densities', data, (q) => mzNormalisedAlphaS.alphaS(q));
- * grid.xfx(21, 0.1, 100) // x g(0.1, 100 GeV)
+ * lesHouchesToyDensities().xfx(21, 0.1, 100) // x g(0.1, Q = 100 GeV) = 0.84359
  */
 export class InterpolatedDensityGrid implements PartonDensity {
   readonly name: string;

@@ -54,7 +54,7 @@ export function gaussLegendre(n: number): QuadratureRule {
  * Integral of f over [a, b] with `panels` equal panels of an n-point rule.
  *
  * @example
- * integrateGaussLegendre((x) => x * x, 0, 3) // 9
+ * integrateGaussLegendre((x) => x * x, 0, 3) // 9 (to rounding)
  */
 export function integrateGaussLegendre(f: (x: number) => number, a: number, b: number, panels = 1, n = 16): number {
   const { nodes, weights } = gaussLegendre(n);

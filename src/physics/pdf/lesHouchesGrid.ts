@@ -134,7 +134,7 @@ let cached: InterpolatedDensityGrid | undefined;
  * and shared by every caller in the process.
  *
  * @example
- * lesHouchesToyDensities().xfx(2, 0.1, 100) // x u(0.1, 100 GeV) = 0.5717 + 0.0929 (valence + sea)
+ * lesHouchesToyDensities().xfx(2, 0.1, 100) // x u(0.1, Q = 100 GeV) = 0.66768 (x u_v 0.57166 + x ubar 0.09603)
  */
 export function lesHouchesToyDensities(): InterpolatedDensityGrid & PartonDensity {
   cached ??= buildLesHouchesGrid();

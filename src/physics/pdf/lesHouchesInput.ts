@@ -56,7 +56,7 @@ if (LES_HOUCHES_INPUT.length !== COLUMN_COUNT) throw new TamisError('internal', 
  * x f(x) of one input column at mu0^2 = 2 GeV^2.
  *
  * @example
- * lesHouchesInputXf(0, 0.1) // x g = 1.7 * 0.1^-0.1 * 0.9^5 = 1.2615...
+ * lesHouchesInputXf(0, 0.1) // x g = 1.7 * 0.1^-0.1 * 0.9^5 = 1.26375
  */
 export function lesHouchesInputXf(column: number, x: number): number {
   let sum = 0;

@@ -30,7 +30,7 @@ export interface LuminosityQuadrature {
  * (relative accuracy about 1e-7 for smooth densities with the defaults).
  * @throws TamisError('bad_input') unless 0 < tau.
  * @example
- * partonLuminosity(lesHouchesToyDensities(), 2, -2, 1e-3, 100) // u ubar luminosity at tau = 1e-3
+ * partonLuminosity(lesHouchesToyDensities(), 2, -2, 1e-3, 100) // 1017.4 (u from beam 1, ubar from beam 2)
  */
 export function partonLuminosity(density: PartonDensity, a: number, b: number, tau: number, q: number, quadrature: LuminosityQuadrature = {}): number {
   if (!(tau > 0)) throw new TamisError('bad_input', `tau must be > 0, got ${tau}`);

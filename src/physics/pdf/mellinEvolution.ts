@@ -40,7 +40,7 @@ const ROUNDING = 1e-12;
  *
  * @example
  * // N = 2: the sum over columns of the real parts is the momentum fraction, 1 - 2.2e-8 at every scale
- * evolveMoments(lesHouchesEvolutionSetup, complex(2), [Math.log(1e4)])
+ * evolveMoments(lesHouchesEvolutionSetup, complex(2), [Math.log(1e4)]) // real parts sum to 0.999999978
  */
 export function evolveMoments(setup: EvolutionSetup, n: Complex, lnTargets: readonly number[]): Float64Array {
   const s1 = harmonicS1(n);

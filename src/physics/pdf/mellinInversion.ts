@@ -66,7 +66,8 @@ export function mellinContour(shape: ContourShape): MellinContour {
  *
  * @example
  * // F(N) = 1 / N is the moment of f = 1, so x f(x) = x:
- * invertMellin(mellinContour(shape), 0.3, contour.points.map((n) => div(complex(1), n))) // 0.3
+ * const contour = mellinContour({ c: 1.5, phi: 0.75 * Math.PI, zMax: 30, panels: 8, pointsPerPanel: 12, growth: 2 });
+ * invertMellin(contour, 0.3, contour.points.map((n) => inverse(n))) // 0.3 (to 1e-12)
  */
 export function invertMellin(contour: MellinContour, x: number, moments: readonly Complex[]): number {
   const factors = inversionFactors(contour, [x]);
