@@ -151,6 +151,13 @@ describe('grid interpolation', () => {
     expect(grid.qMax).toBe(10_000);
   });
 
+  it('gives the same values whatever the order of calls (a repeated x or Q reuses its stencil)', () => {
+    const points = [[0.01, 100], [0.2, 100], [0.2, 3], [0.01, 3], [0.01, 3], [5e-8, 3], [0.995, 1e5]] as const;
+    const first = points.map(([x, q]) => [21, 2, -5].map((id) => grid.xfx(id, x, q)));
+    const again = [...points].reverse().map(([x, q]) => [-5, 2, 21].map((id) => grid.xfx(id, x, q)).reverse()).reverse();
+    expect(again).toEqual(first);
+  });
+
   it('rejects unknown flavours with a TamisError', () => {
     expect(() => grid.xfx(7, 0.1, 100)).toThrow(TamisError);
     expect(() => grid.xfx(2.5, 0.1, 100)).toThrow(/unknown parton flavour/);

@@ -77,6 +77,8 @@ export class InterpolatedDensityGrid implements PartonDensity {
   private readonly xStencil = newStencil();
   private readonly qStencil = newStencil();
   private lnQ2 = 0;
+  private lastX = Number.NaN;
+  private lastQ = Number.NaN;
 
   constructor(name: string, data: DensityGridData, coupling: (q: number) => number) {
     const nx = data.x.length;
@@ -162,18 +164,27 @@ export class InterpolatedDensityGrid implements PartonDensity {
     return sum;
   }
 
-  /** Sets up the x and Q stencils for one point. */
+  /**
+   * Sets up the x and Q stencils for one point. A repeated x or Q (the two partons of one
+   * phase-space point share Q; several flavours share x) reuses the previous stencil.
+   */
   private prepare(x: number, q: number): void {
-    const t = Math.log(x / (1 - x));
-    const xNodes = this.xAxis.nodes;
-    if (t >= xNodes[0]! && t <= xNodes[xNodes.length - 1]!) this.xAxis.fill(t, this.xStencil);
-    else this.xAxis.fillLinearEdge(t, this.xStencil);
-    const qNodes = this.qAxis.nodes;
-    let lnQ2 = Math.log(q * q);
-    if (!(lnQ2 >= qNodes[0]!)) lnQ2 = qNodes[0]!;
-    else if (lnQ2 > qNodes[qNodes.length - 1]!) lnQ2 = qNodes[qNodes.length - 1]!;
-    this.lnQ2 = lnQ2;
-    this.qAxis.fill(lnQ2, this.qStencil);
+    if (x !== this.lastX) {
+      const t = Math.log(x / (1 - x));
+      const xNodes = this.xAxis.nodes;
+      if (t >= xNodes[0]! && t <= xNodes[xNodes.length - 1]!) this.xAxis.fill(t, this.xStencil);
+      else this.xAxis.fillLinearEdge(t, this.xStencil);
+      this.lastX = x;
+    }
+    if (q !== this.lastQ) {
+      const qNodes = this.qAxis.nodes;
+      let lnQ2 = Math.log(q * q);
+      if (!(lnQ2 >= qNodes[0]!)) lnQ2 = qNodes[0]!;
+      else if (lnQ2 > qNodes[qNodes.length - 1]!) lnQ2 = qNodes[qNodes.length - 1]!;
+      this.lnQ2 = lnQ2;
+      this.qAxis.fill(lnQ2, this.qStencil);
+      this.lastQ = q;
+    }
   }
 
   private interpolate(column: number): number {
