@@ -10,6 +10,7 @@ const SUITES: readonly (() => Promise<{ benchmarks: Benchmark[] }>)[] = [
   () => import('./physics.js'),
   () => import('./detector.js'),
   () => import('./pdf.js'),
+  () => import('./selection.js'),
 ];
 
 function formatValue(value: number): string {

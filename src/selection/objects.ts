@@ -20,7 +20,6 @@
  * Everything lives in preallocated typed arrays that are refilled per event.
  */
 import type { ObjectList, RecoEvent } from '../detector/recoEvent.js';
-import { deltaR } from '../physics/fourVector.js';
 
 export interface KinematicThresholds {
   /** Minimum transverse momentum, GeV. */
@@ -91,7 +90,13 @@ export class SelectedObjects {
     this.phi[to] = this.phi[from]!;
     this.charge[to] = this.charge[from]!;
     this.label[to] = this.label[from]!;
-    this.momentum.copyWithin(4 * to, 4 * from, 4 * from + 4);
+    const m = this.momentum;
+    const a = 4 * from;
+    const b = 4 * to;
+    m[b] = m[a]!;
+    m[b + 1] = m[a + 1]!;
+    m[b + 2] = m[a + 2]!;
+    m[b + 3] = m[a + 3]!;
   }
 
   private grow(): void {
@@ -119,16 +124,33 @@ class Flags {
   }
 }
 
-function passThresholds(list: ObjectList, i: number, cuts: KinematicThresholds): boolean {
-  return list.pt[i]! >= cuts.minPt && Math.abs(list.eta[i]!) <= cuts.maxAbsEta;
+const TWO_PI = 2 * Math.PI;
+
+/**
+ * Whether two directions lie closer than Delta R = sqrt(cone2):
+ * Delta R^2 = Delta eta^2 + Delta phi^2 with Delta phi folded into (-pi, pi]
+ * (same as physics/fourVector deltaR, without the square root; azimuths are
+ * in (-pi, pi], so one fold suffices).
+ */
+function within(eta1: number, phi1: number, eta2: number, phi2: number, cone2: number): boolean {
+  const dEta = eta1 - eta2;
+  const dEta2 = dEta * dEta;
+  if (dEta2 >= cone2) return false;
+  let dPhi = phi1 - phi2;
+  if (dPhi > Math.PI) dPhi -= TWO_PI;
+  else if (dPhi <= -Math.PI) dPhi += TWO_PI;
+  return dEta2 + dPhi * dPhi < cone2;
 }
 
 /** Whether object `i` of `list` lies within `cone` of any kept object of `others`. */
 function nearKept(list: ObjectList, i: number, others: ObjectList, keep: Uint8Array, cone: number): boolean {
   const eta = list.eta[i]!;
   const phi = list.phi[i]!;
+  const cone2 = cone * cone;
+  const oEta = others.eta;
+  const oPhi = others.phi;
   for (let j = 0; j < others.size; j++) {
-    if (keep[j] === 1 && deltaR(eta, phi, others.eta[j]!, others.phi[j]!) < cone) return true;
+    if (keep[j] === 1 && within(eta, phi, oEta[j]!, oPhi[j]!, cone2)) return true;
   }
   return false;
 }
@@ -137,29 +159,40 @@ function nearKept(list: ObjectList, i: number, others: ObjectList, keep: Uint8Ar
 function coneSum(list: ObjectList, i: number, others: ObjectList, cone: number): number {
   const eta = list.eta[i]!;
   const phi = list.phi[i]!;
+  const cone2 = cone * cone;
+  const oEta = others.eta;
+  const oPhi = others.phi;
   let sum = 0;
   for (let j = 0; j < others.size; j++) {
     if (others === list && j === i) continue;
-    if (deltaR(eta, phi, others.eta[j]!, others.phi[j]!) < cone) sum += others.pt[j]!;
+    if (within(eta, phi, oEta[j]!, oPhi[j]!, cone2)) sum += others.pt[j]!;
   }
   return sum;
 }
 
-/** The objects one set of definitions selects from each event, plus caches of derived quantities. */
+/**
+ * The objects one set of definitions selects from each event, plus caches of
+ * derived quantities. Leptons and taus are copied (pair masses need their
+ * momenta); jets are summarised (count, b-jet count, HT, leading pT), which is
+ * all the variables use and keeps the per-event work small.
+ */
 export class AnalysisObjects {
   readonly definitions: ObjectDefinitions;
   /** Electrons and muons together, sorted by pT; `label` is 11 or 13. */
   readonly leptons = new SelectedObjects();
   readonly taus = new SelectedObjects();
-  /** Jets (b-tagged or not); `label` is 1 for b-jets. */
-  readonly jets = new SelectedObjects();
   nElectrons = 0;
   nMuons = 0;
+  nJets = 0;
   nBJets = 0;
+  /** Scalar sum of the selected jets' pT, GeV. */
+  ht = 0;
+  /** pT of the leading selected jet (0 without jets), GeV. */
+  leadingJetPt = 0;
   metX = 0;
   metY = 0;
+  /** Missing transverse momentum magnitude, GeV. */
   met = 0;
-  metPhi = 0;
   weight = 1;
 
   /** Derived-quantity caches, filled on first use per event (see pairs.ts). */
@@ -172,9 +205,11 @@ export class AnalysisObjects {
   private readonly muonFlags = new Flags();
   private readonly tauFlags = new Flags();
   private readonly jetFlags = new Flags();
+  private readonly isolationOn: boolean;
 
   constructor(definitions: ObjectDefinitions) {
     this.definitions = definitions;
+    this.isolationOn = definitions.electrons.maxRelativeIsolation !== Infinity || definitions.muons.maxRelativeIsolation !== Infinity;
   }
 
   /** Selects this analysis's objects from a reconstructed event. */
@@ -185,28 +220,26 @@ export class AnalysisObjects {
     const km = this.muonFlags.reset(muons.size);
     const kt = this.tauFlags.reset(taus.size);
     const kj = this.jetFlags.reset(jets.size);
-    for (let i = 0; i < electrons.size; i++) ke[i] = passThresholds(electrons, i, d.electrons) && this.isolated(event, electrons, i, d.electrons) ? 1 : 0;
-    for (let i = 0; i < muons.size; i++) km[i] = passThresholds(muons, i, d.muons) && this.isolated(event, muons, i, d.muons) ? 1 : 0;
-    for (let i = 0; i < taus.size; i++) kt[i] = passThresholds(taus, i, d.taus) ? 1 : 0;
-    for (let i = 0; i < jets.size; i++) kj[i] = passThresholds(jets, i, d.jets) ? 1 : 0;
+    let nLight = markThresholds(electrons, d.electrons, ke) + markThresholds(muons, d.muons, km);
+    let nTaus = markThresholds(taus, d.taus, kt);
+    let nJets = markThresholds(jets, d.jets, kj);
+    if (this.isolationOn && nLight > 0) {
+      nLight = this.applyIsolation(event, electrons, ke, d.electrons) + this.applyIsolation(event, muons, km, d.muons);
+    }
 
     const or = d.overlapRemoval;
-    if (or.tausNearLeptons > 0) {
-      for (let i = 0; i < taus.size; i++) {
-        if (kt[i] === 1 && (nearKept(taus, i, electrons, ke, or.tausNearLeptons) || nearKept(taus, i, muons, km, or.tausNearLeptons))) kt[i] = 0;
-      }
+    if (nTaus > 0 && nLight > 0 && or.tausNearLeptons > 0) {
+      removeNear(taus, kt, electrons, ke, or.tausNearLeptons);
+      nTaus = removeNear(taus, kt, muons, km, or.tausNearLeptons);
     }
-    if (or.jetsNearLeptons > 0) {
-      for (let i = 0; i < jets.size; i++) {
-        if (kj[i] === 1 && (nearKept(jets, i, electrons, ke, or.jetsNearLeptons) || nearKept(jets, i, muons, km, or.jetsNearLeptons))) kj[i] = 0;
-      }
+    if (nJets > 0 && nLight > 0 && or.jetsNearLeptons > 0) {
+      removeNear(jets, kj, electrons, ke, or.jetsNearLeptons);
+      nJets = removeNear(jets, kj, muons, km, or.jetsNearLeptons);
     }
-    if (or.jetsNearTaus > 0) {
-      for (let i = 0; i < jets.size; i++) if (kj[i] === 1 && nearKept(jets, i, taus, kt, or.jetsNearTaus)) kj[i] = 0;
-    }
-    if (or.leptonsNearJets > 0) {
-      for (let i = 0; i < electrons.size; i++) if (ke[i] === 1 && nearKept(electrons, i, jets, kj, or.leptonsNearJets)) ke[i] = 0;
-      for (let i = 0; i < muons.size; i++) if (km[i] === 1 && nearKept(muons, i, jets, kj, or.leptonsNearJets)) km[i] = 0;
+    if (nJets > 0 && nTaus > 0 && or.jetsNearTaus > 0) nJets = removeNear(jets, kj, taus, kt, or.jetsNearTaus);
+    if (nLight > 0 && nJets > 0 && or.leptonsNearJets > 0) {
+      removeNear(electrons, ke, jets, kj, or.leptonsNearJets);
+      removeNear(muons, km, jets, kj, or.leptonsNearJets);
     }
 
     const leptons = this.leptons;
@@ -227,26 +260,77 @@ export class AnalysisObjects {
     }
     this.taus.size = 0;
     for (let i = 0; i < taus.size; i++) if (kt[i] === 1) this.taus.insert(taus, i, 15);
-    this.jets.size = 0;
-    this.nBJets = 0;
-    for (let i = 0; i < jets.size; i++) {
-      if (kj[i] !== 1) continue;
-      const b = jets.tag[i] === 1 && passThresholds(jets, i, d.bJets) ? 1 : 0;
-      this.jets.insert(jets, i, b);
-      this.nBJets += b;
-    }
+    this.summariseJets(jets, kj);
     this.metX = event.metX;
     this.metY = event.metY;
-    this.met = Math.hypot(event.metX, event.metY);
-    this.metPhi = this.met > 0 ? Math.atan2(event.metY, event.metX) : 0;
+    this.met = Math.sqrt(event.metX * event.metX + event.metY * event.metY);
     this.weight = event.weight;
     this.zSearched = false;
   }
 
-  private isolated(event: RecoEvent, list: ObjectList, i: number, cuts: LeptonDefinition): boolean {
-    if (cuts.maxRelativeIsolation === Infinity) return true;
-    const cone = this.definitions.isolationCone;
-    const sum = coneSum(list, i, event.electrons, cone) + coneSum(list, i, event.muons, cone) + coneSum(list, i, event.taus, cone) + coneSum(list, i, event.jets, cone);
-    return sum <= cuts.maxRelativeIsolation * list.pt[i]!;
+  private summariseJets(jets: ObjectList, keep: Uint8Array): void {
+    const b = this.definitions.bJets;
+    let n = 0;
+    let nB = 0;
+    let ht = 0;
+    let leading = 0;
+    for (let i = 0; i < jets.size; i++) {
+      if (keep[i] !== 1) continue;
+      const pt = jets.pt[i]!;
+      n++;
+      ht += pt;
+      if (pt > leading) leading = pt;
+      if (jets.tag[i] === 1 && pt >= b.minPt && Math.abs(jets.eta[i]!) <= b.maxAbsEta) nB++;
+    }
+    this.nJets = n;
+    this.nBJets = nB;
+    this.ht = ht;
+    this.leadingJetPt = leading;
   }
+
+  /** Clears the keep-flag of non-isolated leptons of `list`; returns how many stay. */
+  private applyIsolation(event: RecoEvent, list: ObjectList, keep: Uint8Array, cuts: LeptonDefinition): number {
+    let kept = 0;
+    for (let i = 0; i < list.size; i++) {
+      if (keep[i] !== 1) continue;
+      if (cuts.maxRelativeIsolation !== Infinity) {
+        const cone = this.definitions.isolationCone;
+        const limit = cuts.maxRelativeIsolation * list.pt[i]!;
+        let sum = coneSum(list, i, event.electrons, cone);
+        if (sum <= limit) sum += coneSum(list, i, event.muons, cone);
+        if (sum <= limit) sum += coneSum(list, i, event.taus, cone);
+        if (sum <= limit) sum += coneSum(list, i, event.jets, cone);
+        if (sum > limit) {
+          keep[i] = 0;
+          continue;
+        }
+      }
+      kept++;
+    }
+    return kept;
+  }
+}
+
+/** Sets keep[i] = 1 for objects passing the thresholds, 0 otherwise; returns how many pass. */
+function markThresholds(list: ObjectList, cuts: KinematicThresholds, keep: Uint8Array): number {
+  let n = 0;
+  const minPt = cuts.minPt;
+  const maxAbsEta = cuts.maxAbsEta;
+  for (let i = 0; i < list.size; i++) {
+    const pass = list.pt[i]! >= minPt && Math.abs(list.eta[i]!) <= maxAbsEta;
+    keep[i] = pass ? 1 : 0;
+    if (pass) n++;
+  }
+  return n;
+}
+
+/** Clears the keep-flag of kept objects of `list` lying within `cone` of a kept object of `others`; returns how many of `list` stay. */
+function removeNear(list: ObjectList, keep: Uint8Array, others: ObjectList, othersKeep: Uint8Array, cone: number): number {
+  let kept = 0;
+  for (let i = 0; i < list.size; i++) {
+    if (keep[i] !== 1) continue;
+    if (nearKept(list, i, others, othersKeep, cone)) keep[i] = 0;
+    else kept++;
+  }
+  return kept;
 }

@@ -7,7 +7,6 @@
  * list; a test fails when the README is stale. "Leptons" are the selected
  * electrons and muons; hadronic taus are counted separately.
  */
-import { transverseMass } from '../physics/fourVector.js';
 import type { AnalysisObjects } from './objects.js';
 import { findZCandidate, minimumPairMass, threeLeptonMass } from './pairs.js';
 
@@ -42,7 +41,7 @@ function wLepton(o: AnalysisObjects): number {
   return 0;
 }
 
-const nthPt = (list: 'leptons' | 'taus' | 'jets', n: number) => (o: AnalysisObjects): number => (o[list].size > n ? o[list].pt[n]! : 0);
+const nthPt = (list: 'leptons' | 'taus', n: number) => (o: AnalysisObjects): number => (o[list].size > n ? o[list].pt[n]! : 0);
 
 export const VARIABLES: readonly VariableDefinition[] = [
   { name: 'n_leptons', unit: 'count', description: 'selected light leptons (electrons and muons)', compute: (o) => o.leptons.size },
@@ -50,7 +49,7 @@ export const VARIABLES: readonly VariableDefinition[] = [
   { name: 'n_muons', unit: 'count', description: 'selected muons', compute: (o) => o.nMuons },
   { name: 'n_taus', unit: 'count', description: 'selected hadronically decaying tau candidates', compute: (o) => o.taus.size },
   { name: 'n_leptons_plus_taus', unit: 'count', description: 'n_leptons + n_taus', compute: (o) => o.leptons.size + o.taus.size },
-  { name: 'n_jets', unit: 'count', description: 'selected jets, b-tagged ones included', compute: (o) => o.jets.size },
+  { name: 'n_jets', unit: 'count', description: 'selected jets, b-tagged ones included', compute: (o) => o.nJets },
   { name: 'n_bjets', unit: 'count', description: 'selected jets that are b-tagged and pass the b-jet thresholds', compute: (o) => o.nBJets },
   {
     name: 'n_sfos',
@@ -91,23 +90,27 @@ export const VARIABLES: readonly VariableDefinition[] = [
   { name: 'min_mll', unit: 'GeV', description: 'smallest lepton-pair mass over all pairs; 0 with fewer than two leptons', compute: (o) => minimumPairMass(o, false) },
   { name: 'mlll', unit: 'GeV', description: 'invariant mass of the three leading leptons; 0 with fewer than three', compute: threeLeptonMass },
   { name: 'met', unit: 'GeV', description: 'magnitude of the missing transverse momentum', compute: (o) => o.met },
-  { name: 'ht', unit: 'GeV', description: 'scalar sum of the pT of the selected jets', compute: (o) => sumPt(o.jets.pt, o.jets.size) },
+  { name: 'ht', unit: 'GeV', description: 'scalar sum of the pT of the selected jets', compute: (o) => o.ht },
   { name: 'lt', unit: 'GeV', description: 'scalar sum of the pT of the selected leptons and taus', compute: (o) => sumPt(o.leptons.pt, o.leptons.size) + sumPt(o.taus.pt, o.taus.size) },
-  { name: 'meff', unit: 'GeV', description: 'effective mass ht + lt + met', compute: (o) => sumPt(o.jets.pt, o.jets.size) + sumPt(o.leptons.pt, o.leptons.size) + sumPt(o.taus.pt, o.taus.size) + o.met },
+  { name: 'meff', unit: 'GeV', description: 'effective mass ht + lt + met', compute: (o) => o.ht + sumPt(o.leptons.pt, o.leptons.size) + sumPt(o.taus.pt, o.taus.size) + o.met },
   {
     name: 'mt',
     unit: 'GeV',
     description: 'transverse mass sqrt(2 pT met (1 - cos dphi)) of the missing momentum and one lepton: the leading lepton outside the mll_z pair if there is one, else the leading lepton; 0 without leptons',
     compute: (o) => {
       const i = wLepton(o);
-      return i < 0 ? 0 : transverseMass(o.leptons.pt[i]!, o.leptons.phi[i]!, o.met, o.metPhi);
+      if (i < 0) return 0;
+      // mT^2 = 2 (pT met - pT . met) = 2 pT met (1 - cos dphi), without computing angles.
+      const m = o.leptons.momentum;
+      const v = 2 * (o.leptons.pt[i]! * o.met - (m[4 * i]! * o.metX + m[4 * i + 1]! * o.metY));
+      return v > 0 ? Math.sqrt(v) : 0;
     },
   },
   { name: 'lep1_pt', unit: 'GeV', description: 'pT of the leading lepton; 0 if absent', compute: nthPt('leptons', 0) },
   { name: 'lep2_pt', unit: 'GeV', description: 'pT of the second lepton; 0 if absent', compute: nthPt('leptons', 1) },
   { name: 'lep3_pt', unit: 'GeV', description: 'pT of the third lepton; 0 if absent', compute: nthPt('leptons', 2) },
   { name: 'tau1_pt', unit: 'GeV', description: 'pT of the leading tau; 0 if absent', compute: nthPt('taus', 0) },
-  { name: 'jet1_pt', unit: 'GeV', description: 'pT of the leading jet; 0 if absent', compute: nthPt('jets', 0) },
+  { name: 'jet1_pt', unit: 'GeV', description: 'pT of the leading jet; 0 if absent', compute: (o) => o.leadingJetPt },
 ];
 
 const SLOTS: ReadonlyMap<string, number> = new Map(VARIABLES.map((v, i) => [v.name, i]));

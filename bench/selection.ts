@@ -1,0 +1,118 @@
+/**
+ * Figures of the selection: the four demo analyses on realistic
+ * reconstructed events, alone and together with the detector.
+ *
+ * Events: synthetic parton-level final states like those of the signals tamis
+ * is built for (pairs of new states decaying to leptons, taus, b and light
+ * quarks, neutrinos), reconstructed by the shipped 8 and 13 TeV detector
+ * profiles. Every event goes through both eras: the 8 TeV detector feeds the
+ * two 8 TeV analyses, the 13 TeV detector the two 13 TeV ones.
+ */
+import { createDetector } from '../src/detector/detector.js';
+import { loadDetectorProfile } from '../src/detector/profile/loader.js';
+import { RecoEvent } from '../src/detector/recoEvent.js';
+import { EventRecord, STATUS_DECAYED, STATUS_FINAL, STATUS_INCOMING } from '../src/generator/eventRecord.js';
+import { M_TAU } from '../src/physics/constants.js';
+import { setPtEtaPhiM } from '../src/physics/fourVector.js';
+import { RandomStream } from '../src/physics/random.js';
+import { createSelection } from '../src/selection/engine.js';
+import { loadAnalyses } from '../src/selection/loader.js';
+import { ratePerSecond, type Benchmark } from './benchmark.js';
+
+const POOL = 128;
+const scratch = new Float64Array(4);
+
+function add(record: EventRecord, id: number, status: number, mother: number, pt: number, eta: number, phi: number, mass = 0): number {
+  setPtEtaPhiM(scratch, 0, pt, eta, phi, mass);
+  return record.add(id, status, mother, mother, scratch[0]!, scratch[1]!, scratch[2]!, scratch[3]!, mass);
+}
+
+/** One synthetic signal-like event: 1-4 light leptons, 0-2 hadronic taus, 2-5 quarks (b among them), neutrinos. */
+function syntheticEvent(rng: RandomStream): EventRecord {
+  const record = new EventRecord();
+  record.add(2, STATUS_INCOMING, -1, -1, 0, 0, 800, 800, 0);
+  record.add(-2, STATUS_INCOMING, -1, -1, 0, 0, -800, 800, 0);
+  const pt = () => 15 + 120 * rng.exponential() * 0.5;
+  const eta = () => rng.uniformIn(-2.8, 2.8);
+  const phi = () => rng.uniformIn(-Math.PI, Math.PI);
+  const sign = () => (rng.uniform() < 0.5 ? 1 : -1);
+  const nLeptons = 1 + rng.integerBelow(4);
+  for (let i = 0; i < nLeptons; i++) add(record, sign() * (rng.uniform() < 0.5 ? 11 : 13), STATUS_FINAL, 0, pt(), eta(), phi());
+  const nTaus = rng.integerBelow(3);
+  for (let i = 0; i < nTaus; i++) {
+    const visible = pt();
+    const e = eta();
+    const p = phi();
+    const s = sign();
+    const tau = add(record, s * 15, STATUS_DECAYED, 0, 1.4 * visible, e, p, M_TAU);
+    add(record, -s * 211, STATUS_FINAL, tau, visible, e, p, 0.14);
+    add(record, s * 16, STATUS_FINAL, tau, 0.4 * visible, e, p);
+  }
+  const nQuarks = 2 + rng.integerBelow(4);
+  for (let i = 0; i < nQuarks; i++) add(record, sign() * (rng.uniform() < 0.4 ? 5 : 1 + rng.integerBelow(4)), STATUS_FINAL, 0, pt(), eta(), phi(), 0);
+  const nNeutrinos = rng.integerBelow(3);
+  for (let i = 0; i < nNeutrinos; i++) add(record, sign() * 12, STATUS_FINAL, 0, pt(), eta(), phi());
+  return record;
+}
+
+interface Setup {
+  records: EventRecord[];
+  eras: { detector: ReturnType<typeof createDetector>; selection: ReturnType<typeof createSelection>; pool: RecoEvent[] }[];
+}
+
+let setup: Setup | undefined;
+
+function prepare(): Setup {
+  if (setup !== undefined) return setup;
+  const rng = RandomStream.forStream(2024, 7);
+  const records = Array.from({ length: POOL }, () => syntheticEvent(rng));
+  const analyses = loadAnalyses([new URL('../../analyses', import.meta.url).pathname]);
+  const byDetector = new Map<string, typeof analyses>();
+  for (const a of analyses) byDetector.set(a.detectorFile, [...(byDetector.get(a.detectorFile) ?? []), a]);
+  const eras = [...byDetector].map(([file, group]) => {
+    const detector = createDetector(loadDetectorProfile(file));
+    const pool = records.map((record) => {
+      const reco = new RecoEvent();
+      detector.reconstruct(record, rng, reco);
+      return reco;
+    });
+    return { detector, selection: createSelection(group), pool };
+  });
+  setup = { records, eras };
+  return setup;
+}
+
+export const benchmarks: Benchmark[] = [
+  {
+    name: 'selection_rate_four_analyses',
+    unit: 'events/s',
+    measure: () => {
+      const { eras } = prepare();
+      let i = 0;
+      return ratePerSecond((n) => {
+        for (let k = 0; k < n; k++, i++) {
+          for (let e = 0; e < eras.length; e++) eras[e]!.selection.process(eras[e]!.pool[i & (POOL - 1)]!);
+        }
+      }, 100_000);
+    },
+  },
+  {
+    name: 'detector_plus_selection_rate',
+    unit: 'events/s',
+    measure: () => {
+      const { records, eras } = prepare();
+      const rng = RandomStream.forStream(2024, 8);
+      const reco = new RecoEvent();
+      let i = 0;
+      return ratePerSecond((n) => {
+        for (let k = 0; k < n; k++, i++) {
+          const record = records[i & (POOL - 1)]!;
+          for (let e = 0; e < eras.length; e++) {
+            eras[e]!.detector.reconstruct(record, rng, reco);
+            eras[e]!.selection.process(reco);
+          }
+        }
+      }, 50_000);
+    },
+  },
+];
