@@ -3,6 +3,8 @@
  * unidentified electrons and unidentified tau visible systems, in flat arrays
  * reused from event to event.
  */
+import { K_ABS_ETA, K_E, K_ETA, K_PHI, K_PT, K_PX, K_PY, K_PZ } from './kinematicsSlots.js';
+
 export class DepositList {
   size = 0;
   capacity: number;
@@ -49,6 +51,24 @@ export class DepositList {
     this.flavour[i] = flavour;
     this.truthId[i] = truthId;
     return i;
+  }
+
+  /** Appends a deposit from a kinematics array (layout of kinematicsSlots.ts). */
+  addFromKinematics(k: Float64Array, flavour: number, truthId: number): number {
+    return this.add(k[K_PX]!, k[K_PY]!, k[K_PZ]!, k[K_E]!, k[K_PT]!, k[K_ETA]!, k[K_PHI]!, flavour, truthId);
+  }
+
+  /** Copies deposit `i` into a kinematics array (|eta| included). */
+  loadKinematics(i: number, k: Float64Array): void {
+    k[K_PX] = this.px[i]!;
+    k[K_PY] = this.py[i]!;
+    k[K_PZ] = this.pz[i]!;
+    k[K_E] = this.e[i]!;
+    k[K_PT] = this.pt[i]!;
+    const eta = this.eta[i]!;
+    k[K_ETA] = eta;
+    k[K_ABS_ETA] = eta < 0 ? -eta : eta;
+    k[K_PHI] = this.phi[i]!;
   }
 
   /** Adds a four-momentum to deposit `i` (pT, eta and phi are recomputed by `updateAngles`). */

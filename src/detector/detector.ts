@@ -26,13 +26,13 @@
  * stream passed in, in a fixed order: leptons in record order, tau systems,
  * jets in decreasing pT, then the soft term.
  */
-import { TamisError } from '../errors.js';
 import type { EventRecord } from '../generator/eventRecord.js';
 import type { RandomStream } from '../physics/random.js';
 import { DepositList } from './depositList.js';
 import { buildJets } from './jetBuilding.js';
 import { softTermWidth } from './missingMomentum.js';
-import { FLAVOUR_BOTTOM, FLAVOUR_CHARM, FLAVOUR_LIGHT, FLAVOUR_TAU, KIND_ELECTRON, KIND_HADRON, KIND_INVISIBLE, KIND_MUON, KIND_PARTON, KIND_PHOTON, KIND_UNDECAYED, particleKind, partonFlavour } from './particleKinds.js';
+import { KINEMATICS_SLOTS, K_ABS_ETA, K_E, K_ETA, K_PHI, K_PT, K_PX, K_PY, K_PZ } from './kinematicsSlots.js';
+import { FLAVOUR_BOTTOM, FLAVOUR_CHARM, FLAVOUR_LIGHT, FLAVOUR_TAU, KIND_ELECTRON, KIND_HADRON, KIND_INVISIBLE, KIND_MUON, KIND_PARTON, KIND_UNDECAYED, KIND_UNKNOWN, particleKind, partonFlavour, tauAncestor, unseenParticleError } from './particleKinds.js';
 import type { DetectorProfile, LeptonResponse, MeasuredResolution } from './profile/detectorProfile.js';
 import type { ObjectList, RecoEvent } from './recoEvent.js';
 
@@ -69,23 +69,23 @@ class ParametrisedDetector implements Detector {
   private readonly tauSystems = new DepositList(8);
   private tauMother = new Int32Array(8);
   private order = new Int32Array(32);
-  private softX = 0;
-  private softY = 0;
-  private softSumPt = 0;
+  /** The object in hand (layout of kinematicsSlots.ts). */
+  private readonly k = new Float64Array(KINEMATICS_SLOTS);
+  /** Soft term: sum px, sum py and scalar sum pT of the unclustered visible particles, GeV. */
+  private readonly soft = new Float64Array(3);
 
   constructor(profile: DetectorProfile) {
     this.profile = profile;
   }
 
   reconstruct(record: EventRecord, rng: RandomStream, out: RecoEvent): void {
-    const p = this.profile;
     out.clear();
     out.weight = record.weight;
     this.deposits.clear();
     this.tauSystems.clear();
-    this.softX = 0;
-    this.softY = 0;
-    this.softSumPt = 0;
+    this.soft.fill(0);
+    const calorimeterAbsEta = this.profile.calorimeterAbsEta;
+    const k = this.k;
     const m = record.momentum;
     for (let i = 0; i < record.size; i++) {
       if (record.status[i] !== 1) continue;
@@ -93,23 +93,31 @@ class ParametrisedDetector implements Detector {
       const absId = id < 0 ? -id : id;
       const kind = particleKind(absId);
       if (kind === KIND_INVISIBLE) continue;
+      if (kind === KIND_UNDECAYED || kind === KIND_UNKNOWN) throw unseenParticleError(kind, id, i);
       const o = 4 * i;
       const px = m[o]!;
       const py = m[o + 1]!;
       const pz = m[o + 2]!;
-      const e = m[o + 3]!;
       const pt = Math.sqrt(px * px + py * py);
       if (!(pt > 0)) continue; // along the beam pipe: unseen
       const eta = Math.asinh(pz / pt);
-      const absEta = eta < 0 ? -eta : eta;
+      k[K_PX] = px;
+      k[K_PY] = py;
+      k[K_PZ] = pz;
+      k[K_E] = m[o + 3]!;
+      k[K_PT] = pt;
+      k[K_ETA] = eta;
+      k[K_ABS_ETA] = eta < 0 ? -eta : eta;
       if (kind === KIND_ELECTRON || kind === KIND_MUON) {
-        this.chargedLepton(kind, id, px, py, pz, e, pt, eta, absEta, rng, out);
-      } else if (kind === KIND_PARTON || kind === KIND_PHOTON || kind === KIND_HADRON) {
-        const tau = kind === KIND_HADRON ? tauAncestor(record, i) : -1;
-        if (tau >= 0) this.addToTauSystem(tau, record.pdgId[tau]!, px, py, pz, e);
-        else if (absEta < p.calorimeterAbsEta) this.deposits.add(px, py, pz, e, pt, eta, Math.atan2(py, px), kind === KIND_PARTON ? partonFlavour(absId) : FLAVOUR_LIGHT, id);
-      } else {
-        throw unseenParticle(kind, id, i);
+        this.chargedLepton(kind === KIND_ELECTRON, id, rng, out);
+        continue;
+      }
+      const tau = kind === KIND_HADRON ? tauAncestor(record, i) : -1;
+      if (tau >= 0) {
+        this.addToTauSystem(tau, record.pdgId[tau]!);
+      } else if (k[K_ABS_ETA]! < calorimeterAbsEta) {
+        k[K_PHI] = Math.atan2(py, px);
+        this.deposits.addFromKinematics(k, kind === KIND_PARTON ? partonFlavour(absId) : FLAVOUR_LIGHT, id);
       }
     }
     this.hadronicTaus(rng, out);
@@ -121,29 +129,51 @@ class ParametrisedDetector implements Detector {
     out.jets.sortByPt();
   }
 
-  private chargedLepton(kind: number, id: number, px: number, py: number, pz: number, e: number, pt: number, eta: number, absEta: number, rng: RandomStream, out: RecoEvent): void {
-    const electron = kind === KIND_ELECTRON;
+  /** The electron or muon in hand: identified and measured, or else a calorimeter deposit (electron) or soft activity (muon). */
+  private chargedLepton(electron: boolean, id: number, rng: RandomStream, out: RecoEvent): void {
+    const k = this.k;
     const response = electron ? this.profile.electrons : this.profile.muons;
     // PDG ids 11 and 13 are the negatively charged leptons.
     const charge = id > 0 ? -1 : 1;
-    if (rng.nextUint32() * UINT32_TO_UNIT < response.efficiency.probability(pt, absEta)) {
-      measureLepton(response, px, py, pz, e, pt, eta, absEta, charge, id, rng, electron ? out.electrons : out.muons);
+    if (rng.nextUint32() * UINT32_TO_UNIT < response.efficiency.probability(k[K_PT]!, k[K_ABS_ETA]!)) {
+      this.measure(response, charge, id, rng, electron ? out.electrons : out.muons);
     } else if (electron) {
-      if (absEta < this.profile.calorimeterAbsEta) this.deposits.add(px, py, pz, e, pt, eta, Math.atan2(py, px), FLAVOUR_LIGHT, id);
-    } else if (absEta < this.profile.trackerAbsEta) {
-      this.addSoft(px, py, pt);
+      if (k[K_ABS_ETA]! < this.profile.calorimeterAbsEta) {
+        k[K_PHI] = Math.atan2(k[K_PY]!, k[K_PX]!);
+        this.deposits.addFromKinematics(k, FLAVOUR_LIGHT, id);
+      }
+    } else if (k[K_ABS_ETA]! < this.profile.trackerAbsEta) {
+      this.addSoft();
     }
   }
 
-  private addToTauSystem(tauIndex: number, tauId: number, px: number, py: number, pz: number, e: number): void {
+  /**
+   * Smears the identified lepton or tau in hand (four-momentum times 1 + sigma z),
+   * applies the charge flip and appends it to `list`, unless its measured
+   * momentum would not be positive.
+   */
+  private measure(response: LeptonResponse, charge: number, truthId: number, rng: RandomStream, list: ObjectList): void {
+    const k = this.k;
+    const absEta = k[K_ABS_ETA]!;
+    const f = 1 + relativeWidth(response.resolution, k, absEta) * rng.normal();
+    const flipped = rng.nextUint32() * UINT32_TO_UNIT < response.chargeFlip.at(absEta) ? 1 : 0;
+    if (!(f > 0)) return;
+    k[K_PHI] = Math.atan2(k[K_PY]!, k[K_PX]!);
+    scaleMomentum(k, f);
+    list.addFromKinematics(k, flipped === 1 ? -charge : charge, flipped, truthId);
+  }
+
+  /** Adds the hadron in hand to the visible system of the tau at record index `tauIndex`. */
+  private addToTauSystem(tauIndex: number, tauId: number): void {
     const systems = this.tauSystems;
+    const k = this.k;
     for (let s = 0; s < systems.size; s++) {
       if (this.tauMother[s] === tauIndex) {
-        systems.addMomentum(s, px, py, pz, e);
+        systems.addMomentum(s, k[K_PX]!, k[K_PY]!, k[K_PZ]!, k[K_E]!);
         return;
       }
     }
-    const s = systems.add(px, py, pz, e, 0, 0, 0, FLAVOUR_TAU, tauId);
+    const s = systems.add(k[K_PX]!, k[K_PY]!, k[K_PZ]!, k[K_E]!, 0, 0, 0, FLAVOUR_TAU, tauId);
     if (s >= this.tauMother.length) {
       const grown = new Int32Array(2 * this.tauMother.length);
       grown.set(this.tauMother);
@@ -155,23 +185,18 @@ class ParametrisedDetector implements Detector {
   private hadronicTaus(rng: RandomStream, out: RecoEvent): void {
     const systems = this.tauSystems;
     const response = this.profile.taus;
+    const k = this.k;
     for (let s = 0; s < systems.size; s++) {
       systems.updateAngles(s);
-      const pt = systems.pt[s]!;
-      if (!(pt > 0)) continue;
-      const px = systems.px[s]!;
-      const py = systems.py[s]!;
-      const pz = systems.pz[s]!;
-      const e = systems.e[s]!;
-      const eta = systems.eta[s]!;
-      const absEta = eta < 0 ? -eta : eta;
+      if (!(systems.pt[s]! > 0)) continue;
+      systems.loadKinematics(s, k);
       const tauId = systems.truthId[s]!;
       // The visible system carries the tau's charge (the neutrino is neutral); PDG id 15 is the tau-.
       const charge = tauId > 0 ? -1 : 1;
-      if (rng.nextUint32() * UINT32_TO_UNIT < response.efficiency.probability(pt, absEta)) {
-        measureLepton(response, px, py, pz, e, pt, eta, absEta, charge, tauId, rng, out.taus);
-      } else if (absEta < this.profile.calorimeterAbsEta) {
-        this.deposits.add(px, py, pz, e, pt, eta, systems.phi[s]!, FLAVOUR_TAU, tauId);
+      if (rng.nextUint32() * UINT32_TO_UNIT < response.efficiency.probability(k[K_PT]!, k[K_ABS_ETA]!)) {
+        this.measure(response, charge, tauId, rng, out.taus);
+      } else if (k[K_ABS_ETA]! < this.profile.calorimeterAbsEta) {
+        this.deposits.addFromKinematics(k, FLAVOUR_TAU, tauId);
       }
     }
   }
@@ -182,97 +207,73 @@ class ParametrisedDetector implements Detector {
     buildJets(this.deposits, p.jets.radius, this.jets, this.order);
     const jets = this.jets;
     const tagging = p.bTagging;
+    const k = this.k;
     for (let j = 0; j < jets.size; j++) {
-      const pt = jets.pt[j]!;
-      if (!(pt > 0)) continue;
-      const eta = jets.eta[j]!;
-      const absEta = eta < 0 ? -eta : eta;
-      let sigma = relativeWidth(p.jets.resolution, pt, jets.e[j]!, absEta);
+      if (!(jets.pt[j]! > 0)) continue;
+      jets.loadKinematics(j, k);
+      const pt = k[K_PT]!;
+      const absEta = k[K_ABS_ETA]!;
+      let sigma = relativeWidth(p.jets.resolution, k, absEta);
       if (p.jets.tailFraction > 0 && rng.nextUint32() * UINT32_TO_UNIT < p.jets.tailFraction) sigma *= p.jets.tailWidthFactor;
       const f = 1 + sigma * rng.normal();
       if (!(f > 0)) continue; // measured energy truncated at zero: nothing seen
       if (!(pt * f >= p.jets.minPt) || !(absEta < p.jets.absEtaMax)) {
-        this.addSoft(jets.px[j]!, jets.py[j]!, pt);
+        this.addSoft(); // the soft term is measured with its own resolution
         continue;
       }
       const flavour = jets.flavour[j]!;
       const truthId = jets.truthId[j]!;
-      const px = f * jets.px[j]!;
-      const py = f * jets.py[j]!;
-      const pz = f * jets.pz[j]!;
-      const e = f * jets.e[j]!;
+      scaleMomentum(k, f);
       if (flavour !== FLAVOUR_TAU) {
         const fake = p.taus.jetFakeRate.probability(pt, absEta);
         if (fake > 0 && rng.nextUint32() * UINT32_TO_UNIT < fake) {
           // A jet faking a tau has no preferred charge sign (common practice).
-          const charge = rng.nextUint32() < 0x80000000 ? -1 : 1;
-          out.taus.addMeasured(px, py, pz, e, pt * f, eta, jets.phi[j]!, charge, 0, truthId);
+          out.taus.addFromKinematics(k, rng.nextUint32() < 0x80000000 ? -1 : 1, 0, truthId);
           continue;
         }
       }
       const table = flavour === FLAVOUR_BOTTOM ? tagging.b : flavour === FLAVOUR_CHARM ? tagging.c : flavour === FLAVOUR_TAU ? tagging.tau : tagging.light;
       const tagProbability = table.probability(pt, absEta);
       const tag = tagProbability > 0 && rng.nextUint32() * UINT32_TO_UNIT < tagProbability ? 1 : 0;
-      out.jets.addMeasured(px, py, pz, e, pt * f, eta, jets.phi[j]!, 0, tag, truthId);
+      out.jets.addFromKinematics(k, 0, tag, truthId);
     }
   }
 
-  private addSoft(px: number, py: number, pt: number): void {
-    this.softX += px;
-    this.softY += py;
-    this.softSumPt += pt;
+  /** Adds the object in hand, unmeasured, to the soft term. */
+  private addSoft(): void {
+    this.soft[0] += this.k[K_PX]!;
+    this.soft[1] += this.k[K_PY]!;
+    this.soft[2] += this.k[K_PT]!;
   }
 
   private missingMomentum(rng: RandomStream, out: RecoEvent): void {
-    const x = -this.softX - sumPx(out.electrons, 0) - sumPx(out.muons, 0) - sumPx(out.taus, 0) - sumPx(out.jets, 0);
-    const y = -this.softY - sumPx(out.electrons, 1) - sumPx(out.muons, 1) - sumPx(out.taus, 1) - sumPx(out.jets, 1);
-    const sigma = softTermWidth(this.profile.softTerm.constant, this.profile.softTerm.stochastic, this.softSumPt);
+    const soft = this.soft;
+    const x = -soft[0]! - sumComponent(out.electrons, 0) - sumComponent(out.muons, 0) - sumComponent(out.taus, 0) - sumComponent(out.jets, 0);
+    const y = -soft[1]! - sumComponent(out.electrons, 1) - sumComponent(out.muons, 1) - sumComponent(out.taus, 1) - sumComponent(out.jets, 1);
+    const sigma = softTermWidth(this.profile.softTerm.constant, this.profile.softTerm.stochastic, soft[2]!);
     out.metX = x + sigma * rng.normal();
     out.metY = y + sigma * rng.normal();
   }
 }
 
 /** Sum of the x (`component` 0) or y (1) momentum components of a list. */
-function sumPx(list: ObjectList, component: number): number {
+function sumComponent(list: ObjectList, component: number): number {
   const mom = list.momentum;
   let sum = 0;
-  for (let k = 0; k < list.size; k++) sum += mom[4 * k + component]!;
+  for (let i = 0; i < list.size; i++) sum += mom[4 * i + component]!;
   return sum;
 }
 
-/** sigma_X / X of a smearing rule for an object of pT `pt` and energy `e` (GeV). */
-function relativeWidth(resolution: MeasuredResolution, pt: number, e: number, absEta: number): number {
-  return resolution.table.relativeWidth(resolution.measured === 'pt' ? pt : e, absEta);
+/** sigma_X / X of a smearing rule for the object in hand. */
+function relativeWidth(resolution: MeasuredResolution, k: Float64Array, absEta: number): number {
+  return resolution.table.relativeWidth(resolution.measured === 'pt' ? k[K_PT]! : k[K_E]!, absEta);
 }
 
-/** Smears an identified lepton or tau, applies the charge flip and appends it to `list` (unless its measured momentum would not be positive). */
-function measureLepton(response: LeptonResponse, px: number, py: number, pz: number, e: number, pt: number, eta: number, absEta: number, charge: number, truthId: number, rng: RandomStream, list: ObjectList): void {
-  const f = 1 + relativeWidth(response.resolution, pt, e, absEta) * rng.normal();
-  const flipped = rng.nextUint32() * UINT32_TO_UNIT < response.chargeFlip.at(absEta) ? 1 : 0;
-  if (!(f > 0)) return;
-  list.addMeasured(f * px, f * py, f * pz, f * e, f * pt, eta, Math.atan2(py, px), flipped === 1 ? -charge : charge, flipped, truthId);
-}
-
-/** Index of the tau a hadron descends from through hadrons only (its visible decay system), or -1. */
-function tauAncestor(record: EventRecord, i: number): number {
-  let mother = record.mother1[i]!;
-  for (let depth = 0; depth < 16 && mother >= 0 && mother < record.size; depth++) {
-    const id = record.pdgId[mother]!;
-    const absId = id < 0 ? -id : id;
-    if (absId === 15) return mother;
-    if (particleKind(absId) !== KIND_HADRON) return -1;
-    mother = record.mother1[mother]!;
-  }
-  return -1;
-}
-
-function unseenParticle(kind: number, id: number, index: number): TamisError {
-  if (kind === KIND_UNDECAYED) {
-    return new TamisError('bad_input', `final-state particle ${index} (PDG id ${id}) should have decayed before reaching the detector`, {
-      suggestion: 'decay tops, taus, W, Z and Higgs bosons first (the generator\'s decay step does this, also for events read from files)',
-    });
-  }
-  return new TamisError('bad_input', `final-state particle ${index} has PDG id ${id}, which the detector does not know how to see`, {
-    suggestion: 'the detector sees leptons, quarks, gluons, photons, hadrons and invisible neutral particles; decay other particles first',
-  });
+/** Multiplies the four-momentum and pT of the object in hand by `f` (direction kept). */
+function scaleMomentum(k: Float64Array, f: number): void {
+  k[K_PX] = f * k[K_PX]!;
+  k[K_PY] = f * k[K_PY]!;
+  k[K_PZ] = f * k[K_PZ]!;
+  k[K_E] = f * k[K_E]!;
+  k[K_PT] = f * k[K_PT]!;
 }

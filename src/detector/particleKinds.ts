@@ -4,6 +4,8 @@
  * muon, parton (becomes a jet), photon, hadron, or a particle that should have
  * been decayed before reaching the detector.
  */
+import { TamisError } from '../errors.js';
+import type { EventRecord } from '../generator/eventRecord.js';
 
 export const KIND_UNKNOWN = 0;
 export const KIND_INVISIBLE = 1;
@@ -57,4 +59,29 @@ export function particleKind(absId: number): number {
 /** Jet flavour of a parton: b, c or light (d, u, s, g). */
 export function partonFlavour(absId: number): number {
   return absId === 5 ? FLAVOUR_BOTTOM : absId === 4 ? FLAVOUR_CHARM : FLAVOUR_LIGHT;
+}
+
+/** Index of the tau a hadron descends from through hadrons only (its visible decay system), or -1. */
+export function tauAncestor(record: EventRecord, i: number): number {
+  let mother = record.mother1[i]!;
+  for (let depth = 0; depth < 16 && mother >= 0 && mother < record.size; depth++) {
+    const id = record.pdgId[mother]!;
+    const absId = id < 0 ? -id : id;
+    if (absId === 15) return mother;
+    if (particleKind(absId) !== KIND_HADRON) return -1;
+    mother = record.mother1[mother]!;
+  }
+  return -1;
+}
+
+/** The error for a final-state particle the detector cannot see (`kind` KIND_UNDECAYED or KIND_UNKNOWN). */
+export function unseenParticleError(kind: number, id: number, index: number): TamisError {
+  if (kind === KIND_UNDECAYED) {
+    return new TamisError('bad_input', `final-state particle ${index} (PDG id ${id}) should have decayed before reaching the detector`, {
+      suggestion: 'decay tops, taus, W, Z and Higgs bosons first (the generator\'s decay step does this, also for events read from files)',
+    });
+  }
+  return new TamisError('bad_input', `final-state particle ${index} has PDG id ${id}, which the detector does not know how to see`, {
+    suggestion: 'the detector sees leptons, quarks, gluons, photons, hadrons and invisible neutral particles; decay other particles first',
+  });
 }

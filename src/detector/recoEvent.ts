@@ -7,6 +7,7 @@
  * definitions and are applied by the selection engine. Buffers are reused
  * from event to event (no per-event allocation).
  */
+import { K_E, K_ETA, K_PHI, K_PT, K_PX, K_PY, K_PZ } from './kinematicsSlots.js';
 
 /** One kind of reconstructed object (electrons, muons, hadronic taus or jets) in flat arrays. */
 export class ObjectList {
@@ -61,20 +62,22 @@ export class ObjectList {
   }
 
   /**
-   * Appends an object whose pT, eta and phi the caller already computed (the
-   * detector's fast path: smearing scales the momentum and keeps the direction).
+   * Appends an object from a kinematics array laid out as in kinematicsSlots.ts,
+   * (px, py, pz, E, pT, eta, phi) at offsets 0 to 6: the detector's fast path,
+   * which knows pT, eta and phi already (smearing scales the momentum and keeps
+   * the direction).
    */
-  addMeasured(px: number, py: number, pz: number, e: number, pt: number, eta: number, phi: number, charge: number, tag: number, truthId: number): number {
+  addFromKinematics(k: Float64Array, charge: number, tag: number, truthId: number): number {
     if (this.size === this.capacity) this.grow();
     const i = this.size++;
     const o = 4 * i;
-    this.momentum[o] = px;
-    this.momentum[o + 1] = py;
-    this.momentum[o + 2] = pz;
-    this.momentum[o + 3] = e;
-    this.pt[i] = pt;
-    this.eta[i] = eta;
-    this.phi[i] = phi;
+    this.momentum[o] = k[K_PX]!;
+    this.momentum[o + 1] = k[K_PY]!;
+    this.momentum[o + 2] = k[K_PZ]!;
+    this.momentum[o + 3] = k[K_E]!;
+    this.pt[i] = k[K_PT]!;
+    this.eta[i] = k[K_ETA]!;
+    this.phi[i] = k[K_PHI]!;
     this.charge[i] = charge;
     this.tag[i] = tag;
     this.truthId[i] = truthId;

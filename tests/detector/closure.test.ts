@@ -14,13 +14,14 @@ import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
 import { createDetector } from '../../src/detector/detector.js';
 import type { EfficiencyTable } from '../../src/detector/efficiencyTable.js';
+import { builtInDetectorProfileNames, findDetectorProfile } from '../../src/detector/profile/builtInProfiles.js';
 import type { DetectorProfile } from '../../src/detector/profile/detectorProfile.js';
 import { RecoEvent } from '../../src/detector/recoEvent.js';
 import { EventRecord, STATUS_FINAL } from '../../src/generator/eventRecord.js';
 import { RandomStream } from '../../src/physics/random.js';
 import { expectClose } from '../helpers.js';
 import { addBeams, addHadronicTau, addParticle } from './eventBuilders.js';
-import { PROFILE_13TEV, PROFILE_8TEV, constantTable } from './profileVariants.js';
+import { PROFILE_8TEV, constantTable } from './profileVariants.js';
 
 /** Objects per event, spread in phi by more than the jet radius so that no two merge. */
 const PER_EVENT = 10;
@@ -111,7 +112,7 @@ function expectClosure(c: Closure): void {
   expect(c.worstPull).toBeLessThan(4.5);
 }
 
-describe.each([PROFILE_8TEV, PROFILE_13TEV])('closure of the $name profile', (profile) => {
+describe.each(builtInDetectorProfileNames().map((name) => findDetectorProfile(name)))('closure of the $name profile', (profile) => {
   it('electron identification efficiency in every (pT, |eta|) bin', () => {
     expectClosure(closure(profile, profile.electrons.efficiency, 'electron', countAll('electrons'), 1));
   });
