@@ -17,7 +17,7 @@
 import { TamisError } from '../../errors.js';
 import { PDG } from '../../physics/constants.js';
 import { setPxPyPzE } from '../../physics/fourVector.js';
-import { isotropicTwoBodyDecay, threeBodyDecayFlat } from '../../physics/phaseSpace.js';
+import { threeBodyDecayFlat } from '../../physics/phaseSpace.js';
 import type { RandomStream } from '../../physics/random.js';
 import { STATUS_DECAYED, STATUS_FINAL, type EventRecord } from '../eventRecord.js';
 import { ParticleTable, type DecayTable } from '../particles.js';
@@ -34,7 +34,7 @@ import {
   type CompiledDecays,
 } from './compileDecays.js';
 import { sampleVectorPairMasses, sampleZGammaMass } from './higgsDecay.js';
-import { boostFromRest, restMass } from './restFrameBoost.js';
+import { boostFromRest, restMass, twoBodyAtRest } from './restFrame.js';
 import { sampleTauLeptonicAtRest } from './tauDecay.js';
 import { sampleTauVisibleMass, TAU_OTHER_HADRONS } from './tauHadrons.js';
 import { decayTopVA, TopDecayScratch } from './topDecay.js';
@@ -147,9 +147,12 @@ class ChainDecayer implements Decayer {
       // Record order (l, nubar_l, nu_tau); the matrix element pairs l with nu_tau.
       sampleTauLeptonicAtRest(parentMass, m0, rng, rest, 1, 3, 2);
     } else {
-      setPxPyPzE(rest, 0, 0, 0, 0, parentMass);
-      if (n === 3) threeBodyDecayFlat(rest, 0, m0, m1, m2, rng, rest, 1, 2, 3);
-      else isotropicTwoBodyDecay(rest, 0, m0, m1, rng, rest, 1, 2);
+      if (n === 3) {
+        setPxPyPzE(rest, 0, 0, 0, 0, parentMass);
+        threeBodyDecayFlat(rest, 0, m0, m1, m2, rng, rest, 1, 2, 3);
+      } else {
+        twoBodyAtRest(rest, 1, 2, parentMass, m0, m1, 2 * rng.uniform() - 1, 2 * Math.PI * rng.uniform());
+      }
     }
     const momentum = record.momentum;
     for (let k = 0; k < n; k++) boostFromRest(rest, k + 1, momentum, i, parentMass, momentum, first + k);

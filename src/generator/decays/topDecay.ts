@@ -22,9 +22,9 @@
  * particles in the same places.
  */
 import { setPxPyPzE } from '../../physics/fourVector.js';
-import { isotropicTwoBodyDecay, twoBodyDecay, twoBodyMomentum } from '../../physics/phaseSpace.js';
+import { twoBodyMomentum } from '../../physics/phaseSpace.js';
 import type { RandomStream } from '../../physics/random.js';
-import { boostFromRest } from './restFrameBoost.js';
+import { boostFromRest, twoBodyAtRest } from './restFrame.js';
 
 /** W helicity fractions at leading order (longitudinal, left-handed, right-handed). */
 export interface HelicityFractions {
@@ -58,10 +58,9 @@ export function helicityFractionsLO(topMass: number, wMass: number, quarkMass: n
   return { f0: n0 / sum, fl: nl / sum, fr: nr / sum };
 }
 
-/** Scratch vectors in the top rest frame: 0 top, 1 quark, 2 W, 3 fbar, 4 f. */
+/** Scratch vectors in the top rest frame: 1 quark, 2 W, 3 fbar, 4 f; 5 and 6 fbar, f in the W rest frame. */
 export class TopDecayScratch {
-  readonly p = new Float64Array(20);
-  readonly axis: [number, number, number] = [0, 0, 1];
+  readonly p = new Float64Array(28);
 }
 
 /**
@@ -88,8 +87,8 @@ export function decayTopVA(
 ): void {
   const mt = topMass;
   const p = scratch.p;
-  setPxPyPzE(p, 0, 0, 0, 0, mt);
-  isotropicTwoBodyDecay(p, 0, quarkMass, wMass, rng, p, 1, 2);
+  // Unpolarised top: the W flies isotropically in the top rest frame.
+  twoBodyAtRest(p, 1, 2, mt, quarkMass, wMass, 2 * rng.uniform() - 1, 2 * Math.PI * rng.uniform());
 
   // Kinematics in the W rest frame (see the file comment).
   const eq = (mt * mt - quarkMass * quarkMass - wMass * wMass) / (2 * wMass);
@@ -110,11 +109,47 @@ export function decayTopVA(
     c = 2 * rng.uniform() - 1;
     if (rng.uniform() * wMax <= (alpha + qk * c) * (beta - qk * c)) break;
   }
-  const axis = scratch.axis;
-  axis[0] = p[8]!;
-  axis[1] = p[9]!;
-  axis[2] = p[10]!;
-  twoBodyDecay(p, 2, m1, m2, c, 2 * Math.PI * rng.uniform() - Math.PI, p, 3, 4, axis);
+  // Helicity frame: n along the W flight direction in the top frame, e1 and e2 any
+  // orthonormal completion (the azimuth about n is uniform, so the choice does not matter).
+  const px = p[8]!;
+  const py = p[9]!;
+  const pz = p[10]!;
+  const norm = Math.sqrt(px * px + py * py + pz * pz);
+  const nx = px / norm;
+  const ny = py / norm;
+  const nz = pz / norm;
+  // e1 = n x (x axis or z axis, whichever is less parallel to n), normalised; e2 = n x e1.
+  let ax: number;
+  let ay: number;
+  let az: number;
+  if (Math.abs(nx) < 0.6) {
+    ax = 0;
+    ay = nz;
+    az = -ny;
+  } else {
+    ax = ny;
+    ay = -nx;
+    az = 0;
+  }
+  const an = Math.sqrt(ax * ax + ay * ay + az * az);
+  ax /= an;
+  ay /= an;
+  az /= an;
+  const bx = ny * az - nz * ay;
+  const by = nz * ax - nx * az;
+  const bz = nx * ay - ny * ax;
+  const s = Math.sqrt(Math.max(0, 1 - c * c));
+  const phi = 2 * Math.PI * rng.uniform();
+  const u = s * Math.cos(phi);
+  const v = s * Math.sin(phi);
+  // W daughters in the W rest frame (slots 5 and 6), then boosted to the top frame (slots 3 and 4).
+  const dx = k * (u * ax + v * bx + c * nx);
+  const dy = k * (u * ay + v * by + c * ny);
+  const dz = k * (u * az + v * bz + c * nz);
+  setPxPyPzE(p, 5, dx, dy, dz, e1);
+  setPxPyPzE(p, 6, -dx, -dy, -dz, e2);
+  boostFromRest(p, 5, p, 2, wMass, p, 3);
+  boostFromRest(p, 6, p, 2, wMass, p, 4);
 
   boostFromRest(p, 1, momentum, iTop, mt, momentum, iQuark);
   boostFromRest(p, 2, momentum, iTop, mt, momentum, iW);

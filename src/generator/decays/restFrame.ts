@@ -1,6 +1,8 @@
 /**
- * Boost from a parent's rest frame written with the parent's four-momentum and
- * mass instead of its velocity.
+ * Decay kinematics in the parent's rest frame and the boost out of it.
+ *
+ * The boost is written with the parent's four-momentum and mass instead of
+ * its velocity.
  *
  * For a parent (E, P) of mass M and a vector (e*, p*) in its rest frame:
  *   e = (E e* + P.p*) / M,   p = p* + P ((P.p*) / (M (E + M)) + e* / M)
@@ -42,4 +44,32 @@ export function restMass(p: Float64Array, i: number): number {
   const e = p[o + 3]!;
   const m2 = e * e - p[o]! * p[o]! - p[o + 1]! * p[o + 1]! - p[o + 2]! * p[o + 2]!;
   return m2 > 0 ? Math.sqrt(m2) : 0;
+}
+
+/**
+ * Two-body decay of a parent at rest with mass `parentMass` into masses m1, m2:
+ * daughter 1 along the direction (cosTheta, phiAngle) about the lab axes,
+ * daughter 2 opposite; p* = sqrt(lambda(M^2, m1^2, m2^2)) / 2M (PDG Review,
+ * "Kinematics"). Writes slots i1, i2 of `out`; the caller checks the threshold.
+ */
+export function twoBodyAtRest(out: Float64Array, i1: number, i2: number, parentMass: number, m1: number, m2: number, cosTheta: number, phiAngle: number): void {
+  const M2 = parentMass * parentMass;
+  const a = m1 * m1;
+  const b = m2 * m2;
+  const lambda = M2 * M2 + a * a + b * b - 2 * (M2 * a + M2 * b + a * b);
+  const p = lambda > 0 ? Math.sqrt(lambda) / (2 * parentMass) : 0;
+  const sinTheta = Math.sqrt(Math.max(0, 1 - cosTheta * cosTheta));
+  const x = p * sinTheta * Math.cos(phiAngle);
+  const y = p * sinTheta * Math.sin(phiAngle);
+  const z = p * cosTheta;
+  const o1 = 4 * i1;
+  const o2 = 4 * i2;
+  out[o1] = x;
+  out[o1 + 1] = y;
+  out[o1 + 2] = z;
+  out[o1 + 3] = (M2 + a - b) / (2 * parentMass);
+  out[o2] = -x;
+  out[o2 + 1] = -y;
+  out[o2 + 2] = -z;
+  out[o2 + 3] = (M2 - a + b) / (2 * parentMass);
 }
