@@ -22,7 +22,11 @@ export class ObjectList {
   charge: Int8Array;
   /** Jets: 1 when b-tagged. Leptons and taus: 1 when the reconstructed charge was flipped (truth, for tests). */
   tag: Uint8Array;
-  /** PDG id of the generator particle the object came from (truth, for tests and efficiency maps); 0 if unknown. */
+  /**
+   * PDG id of the generator particle the object came from (truth, for tests and efficiency maps); 0 if unknown.
+   * Taus from a real tau carry the tau's id (+-15), taus faked by a jet the jet's; a jet carries the id of
+   * the constituent that set its flavour (b, c, a tau, else its hardest parton, photon or unidentified electron).
+   */
   truthId: Int32Array;
 
   constructor(capacity = 16) {
