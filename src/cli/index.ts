@@ -11,6 +11,7 @@ import type { CommandModule } from './command.js';
 /** Command modules, in the order `tamis --help` lists them. Imported lazily. */
 const COMMANDS: readonly (() => Promise<CommandModule>)[] = [
   () => import('./commands/check.js'),
+  () => import('./commands/cutflow.js'),
   () => import('./commands/newAnalysis.js'),
   () => import('./commands/variables.js'),
   () => import('./commands/pdf.js'),
