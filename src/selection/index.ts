@@ -12,3 +12,8 @@ export { compileExpression, type CompiledCut, type VariableReader } from './expr
 export { tokenize, type Token, type ComparisonOperator } from './expression/lexer.js';
 export { createSelection, type Selection, type SelectionOptions } from './engine.js';
 export { mergeSelectionResults, weightedCount, type WeightedCount, type StepResult, type RegionResult, type CutBlame, type RegionOverlap, type AnalysisResult, type SelectionResults } from './results.js';
+export { selectEventFile, STREAM_DETECTOR, type EventFileOptions, type EventFileResults } from './eventFile.js';
+export { formatCutflow } from './cutflowText.js';
+export { checkFile, fileKindOf, type CheckOutcome, type CheckedKind } from './checkFile.js';
+export { analysisTemplate, writeNewAnalysis } from './template.js';
+export { variableTableMarkdown, variableTableText, withVariableTable } from './variableDocs.js';
