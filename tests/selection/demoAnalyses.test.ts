@@ -86,6 +86,39 @@ describe('the demo analyses', () => {
     }
   });
 
+  it('give n95 limits consistent with their counts: within 30% of the fixed-background CLs limit, never below 3.00', () => {
+    // CLs = P(N <= n | s + b) / P(N <= n | b) (Read, J. Phys. G 28 (2002) 2693; Junk, NIM A434 (1999) 435),
+    // solved for CLs = 0.05 by bisection; s_up(n = 0) = -ln 0.05 = 2.996 for any b (checks.md, section 2).
+    const cdf = (n: number, mu: number): number => {
+      let term = Math.exp(-mu);
+      let sum = term;
+      for (let k = 1; k <= n; k++) sum += (term *= mu / k);
+      return sum;
+    };
+    const fixedBackgroundLimit = (n: number, b: number): number => {
+      let lo = 0;
+      let hi = 200;
+      for (let i = 0; i < 100; i++) {
+        const mid = (lo + hi) / 2;
+        if (cdf(n, mid + b) / cdf(n, b) > 0.05) lo = mid;
+        else hi = mid;
+      }
+      return lo;
+    };
+    let checked = 0;
+    for (const name of FILES) {
+      for (const r of load(name).regions) {
+        if (r.n95Observed === undefined) continue;
+        const reference = fixedBackgroundLimit(r.observed, r.background);
+        expect(r.n95Observed, `${name} ${r.name}`).toBeGreaterThanOrEqual(2.99);
+        expect(Math.abs(r.n95Observed / reference - 1), `${name} ${r.name}: ${r.n95Observed} vs ${reference}`).toBeLessThan(0.3);
+        expect(r.n95Expected, `${name} ${r.name}`).toBeDefined();
+        checked++;
+      }
+    }
+    expect(checked).toBeGreaterThanOrEqual(10);
+  });
+
   it('declared disjoint have no two regions passed by one set of variable values (20 000 seeded samples each)', () => {
     const rng = RandomStream.forStream(77, 1);
     const values = new Float64Array(VARIABLES.length);
