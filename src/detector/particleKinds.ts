@@ -32,8 +32,11 @@ SMALL_ID_KINDS[13] = KIND_MUON;
 for (const id of [1, 2, 3, 4, 5, 21]) SMALL_ID_KINDS[id] = KIND_PARTON;
 SMALL_ID_KINDS[22] = KIND_PHOTON;
 for (const id of [6, 15, 23, 24, 25]) SMALL_ID_KINDS[id] = KIND_UNDECAYED;
-// Two- and three-digit ids from 100 up are mesons in the PDG scheme.
-for (let id = 100; id < 1000; id++) SMALL_ID_KINDS[id] = KIND_HADRON;
+// Ids 81-100 are reserved for generator-specific pseudoparticles (PDG Monte Carlo numbering
+// scheme; from memory); tamis's generator writes the lumped "other hadrons" system of a tau
+// decay as 98 (generator/decays/tauHadrons.ts), so they are visible hadronic systems here.
+// Three-digit ids from 100 up are mesons.
+for (let id = 81; id < 1000; id++) SMALL_ID_KINDS[id] = KIND_HADRON;
 
 /**
  * Stable neutral particles of common new-physics models that escape the detector:
@@ -61,14 +64,17 @@ export function partonFlavour(absId: number): number {
   return absId === 5 ? FLAVOUR_BOTTOM : absId === 4 ? FLAVOUR_CHARM : FLAVOUR_LIGHT;
 }
 
-/** Index of the tau a hadron descends from through hadrons only (its visible decay system), or -1. */
+/**
+ * Index of the tau a final-state hadron descends from (it is then part of that
+ * tau's visible decay system), or -1. The search follows first mothers through
+ * any intermediates (a W* written between tau and hadrons, a rho decayed to
+ * pions), up to 16 generations.
+ */
 export function tauAncestor(record: EventRecord, i: number): number {
   let mother = record.mother1[i]!;
   for (let depth = 0; depth < 16 && mother >= 0 && mother < record.size; depth++) {
     const id = record.pdgId[mother]!;
-    const absId = id < 0 ? -id : id;
-    if (absId === 15) return mother;
-    if (particleKind(absId) !== KIND_HADRON) return -1;
+    if (id === 15 || id === -15) return mother;
     mother = record.mother1[mother]!;
   }
   return -1;

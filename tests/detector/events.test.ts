@@ -222,6 +222,35 @@ describe('hadronic taus', () => {
     for (let c = 0; c < 4; c++) expectClose(out.taus.momentum[c]!, record.momentum[4 * 4 + c]! + record.momentum[4 * 5 + c]!, { rel: 1e-12 });
     expect(out.jets.size).toBe(0);
   });
+  it('are built from every visible system the generator writes (pi, rho, a1 and the lumped id 98)', () => {
+    const p = perfectProfile();
+    const detector = createDetector({ ...p, taus: { ...p.taus, efficiency: constantTable(1), chargeFlip: new EtaBinnedValues([0, 10], [0]) } });
+    const out = new RecoEvent();
+    for (const visible of [211, 213, 20213, 98]) {
+      const record = new EventRecord();
+      addBeams(record);
+      addHadronicTau(record, -15, 40, 1.0, -0.5, visible);
+      detector.reconstruct(record, RandomStream.forStream(3), out);
+      expect(out.taus.size).toBe(1);
+      expect(out.taus.charge[0]).toBe(1);
+      expect(out.taus.truthId[0]).toBe(-15);
+      expectClose(out.taus.pt[0]!, 40, { rel: 1e-12 });
+    }
+  });
+  it('are found through an intermediate W* written between the tau and its hadrons', () => {
+    const record = new EventRecord();
+    addBeams(record);
+    const tau = addParticle(record, 15, STATUS_DECAYED, 0, 50, 0.2, 0.4, M_TAU);
+    addParticle(record, 16, STATUS_FINAL, tau, 10, 0.2, 0.4);
+    const w = addParticle(record, -24, STATUS_DECAYED, tau, 40, 0.2, 0.4, 1.2);
+    addParticle(record, -211, STATUS_FINAL, w, 40, 0.2, 0.4, 0.14);
+    const p = perfectProfile();
+    const detector = createDetector({ ...p, taus: { ...p.taus, efficiency: constantTable(1) } });
+    const out = new RecoEvent();
+    detector.reconstruct(record, RandomStream.forStream(5), out);
+    expect(out.taus.size).toBe(1);
+    expect(out.taus.truthId[0]).toBe(15);
+  });
   it('decaying leptonically give a light lepton and no tau', () => {
     const record = new EventRecord();
     addBeams(record);

@@ -75,6 +75,7 @@ describe('particleKind', () => {
     expect(particleKind(21)).toBe(KIND_PARTON);
     expect(particleKind(211)).toBe(KIND_HADRON);
     expect(particleKind(20213)).toBe(KIND_HADRON);
+    expect(particleKind(98)).toBe(KIND_HADRON); // the generator's lumped tau-decay hadrons
     expect(particleKind(15)).toBe(KIND_UNDECAYED);
     expect(particleKind(6)).toBe(KIND_UNDECAYED);
     expect(particleKind(1000022)).toBe(KIND_INVISIBLE);
