@@ -64,6 +64,11 @@ export async function checkFile(file: string): Promise<CheckOutcome> {
     }
     case 'analysis': {
       const a = parseAnalysis(text, file);
+      if (a.referenceCutflow !== undefined) {
+        // The benchmark model of a reference cut-flow must itself be a valid model file.
+        const { loadModel } = await import('../generator/model/index.js');
+        loadModel(a.referenceCutflow.modelFile);
+      }
       const invented = a.invented ? ', invented numbers' : '';
       return {
         file,
