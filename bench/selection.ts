@@ -17,6 +17,8 @@ import { setPtEtaPhiM } from '../src/physics/fourVector.js';
 import { RandomStream } from '../src/physics/random.js';
 import { createSelection } from '../src/selection/engine.js';
 import { loadAnalyses } from '../src/selection/loader.js';
+import { setFlagsFromString } from 'node:v8';
+import { runInNewContext } from 'node:vm';
 import { ratePerSecond, type Benchmark } from './benchmark.js';
 
 const POOL = 128;
@@ -82,6 +84,12 @@ function prepare(): Setup {
   return setup;
 }
 
+/** A garbage-collection trigger (the usual way to reach V8's gc() without a command-line flag). */
+function collector(): () => void {
+  setFlagsFromString('--expose-gc');
+  return runInNewContext('gc') as () => void;
+}
+
 export const benchmarks: Benchmark[] = [
   {
     name: 'selection_rate_four_analyses',
@@ -94,6 +102,26 @@ export const benchmarks: Benchmark[] = [
           for (let e = 0; e < eras.length; e++) eras[e]!.selection.process(eras[e]!.pool[i & (POOL - 1)]!);
         }
       }, 100_000);
+    },
+  },
+  {
+    // Streaming: the heap after 1 000 000 events minus the heap after 100 000, per extra event; 0 means flat.
+    name: 'selection_heap_growth_per_event',
+    unit: 'bytes/event',
+    measure: () => {
+      const { eras } = prepare();
+      const gc = collector();
+      const selection = createSelection(eras.flatMap((e) => e.selection.analyses));
+      const pool = eras[0]!.pool;
+      const run = (n: number) => {
+        for (let i = 0; i < n; i++) selection.process(pool[i & (POOL - 1)]!);
+      };
+      run(100_000);
+      gc();
+      const before = process.memoryUsage().heapUsed;
+      run(900_000);
+      gc();
+      return (process.memoryUsage().heapUsed - before) / 900_000;
     },
   },
   {

@@ -72,7 +72,8 @@ export async function selectEventFile(analyses: readonly Analysis[], file: strin
   const read = await readLheFile(
     file,
     (record, index) => {
-      for (const run of runs) {
+      for (let k = 0; k < runs.length; k++) {
+        const run = runs[k]!;
         try {
           run.detector.reconstruct(record, run.rng, reco);
         } catch (error) {
