@@ -53,10 +53,12 @@ export class RandomStream {
   /** Builds a stream from four 32-bit state words (not all zero). Prefer `forStream`. */
   constructor(s0: number, s1: number, s2: number, s3: number) {
     if ((s0 | s1 | s2 | s3) === 0) throw new RangeError('xoshiro128** state must not be all zero');
-    this.s0 = s0 >>> 0;
-    this.s1 = s1 >>> 0;
-    this.s2 = s2 >>> 0;
-    this.s3 = s3 >>> 0;
+    // State words are kept as signed int32 (`| 0`): values above 2^31 would
+    // otherwise be stored as boxed doubles and slow every draw.
+    this.s0 = s0 | 0;
+    this.s1 = s1 | 0;
+    this.s2 = s2 | 0;
+    this.s3 = s3 | 0;
   }
 
   /**
@@ -104,7 +106,7 @@ export class RandomStream {
 
   /** The four state words (for checkpoints and tests). */
   state(): [number, number, number, number] {
-    return [this.s0, this.s1, this.s2, this.s3];
+    return [this.s0 >>> 0, this.s1 >>> 0, this.s2 >>> 0, this.s3 >>> 0];
   }
 
   /** Next 32-bit unsigned integer. */
@@ -118,10 +120,6 @@ export class RandomStream {
     this.s0 ^= this.s3;
     this.s2 ^= t;
     this.s3 = rotl(this.s3, 11);
-    this.s0 >>>= 0;
-    this.s1 >>>= 0;
-    this.s2 >>>= 0;
-    this.s3 >>>= 0;
     return result;
   }
 
@@ -206,10 +204,10 @@ export class RandomStream {
         this.nextUint32();
       }
     }
-    this.s0 = t0 >>> 0;
-    this.s1 = t1 >>> 0;
-    this.s2 = t2 >>> 0;
-    this.s3 = t3 >>> 0;
+    this.s0 = t0 | 0;
+    this.s1 = t1 | 0;
+    this.s2 = t2 | 0;
+    this.s3 = t3 | 0;
     this.spareNormal = Number.NaN;
   }
 }
