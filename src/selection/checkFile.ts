@@ -45,7 +45,7 @@ export function fileKindOf(file: string, text: string): CheckedKind {
  *
  * @example
  * (await checkFile('analyses/same-sign-8tev.yaml')).summary
- * // 'same-sign-8tev, 8 TeV, 20.3 fb^-1, 6 steps, 18 regions, detector generic-8tev.yaml'
+ * // 'same-sign-8tev, 8 TeV, 20.3 fb^-1, 6 steps, 18 regions, detector generic-8tev.yaml, invented numbers'
  */
 export async function checkFile(file: string): Promise<CheckOutcome> {
   const text = readTextFile(file);

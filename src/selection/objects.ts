@@ -20,6 +20,10 @@
  * Everything lives in preallocated typed arrays that are refilled per event.
  */
 import type { ObjectList, RecoEvent } from '../detector/recoEvent.js';
+import { coneSum, markThresholds, removeNear } from './objectGeometry.js';
+import { Flags, SelectedObjects } from './selectedObjects.js';
+
+export { SelectedObjects } from './selectedObjects.js';
 
 export interface KinematicThresholds {
   /** Minimum transverse momentum, GeV. */
@@ -51,123 +55,6 @@ export interface ObjectDefinitions {
   /** Delta R cone of the lepton isolation sum. */
   isolationCone: number;
   overlapRemoval: OverlapRemoval;
-}
-
-/** A kind of selected object in flat arrays, sorted by decreasing pT. */
-export class SelectedObjects {
-  size = 0;
-  pt = new Float64Array(8);
-  eta = new Float64Array(8);
-  phi = new Float64Array(8);
-  charge = new Int8Array(8);
-  /** Leptons: 11 or 13 (|PDG id|); jets: 1 when b-tagged. */
-  label = new Uint8Array(8);
-  /** Four-momenta (px, py, pz, E), GeV. */
-  momentum = new Float64Array(32);
-
-  /** Appends object `i` of `list`, keeping the pT order. */
-  insert(list: ObjectList, i: number, label: number): void {
-    if (this.size === this.pt.length) this.grow();
-    const pt = list.pt[i]!;
-    let j = this.size++;
-    for (; j > 0 && this.pt[j - 1]! < pt; j--) this.move(j - 1, j);
-    this.pt[j] = pt;
-    this.eta[j] = list.eta[i]!;
-    this.phi[j] = list.phi[i]!;
-    this.charge[j] = list.charge[i]!;
-    this.label[j] = label;
-    const o = 4 * j;
-    const p = 4 * i;
-    this.momentum[o] = list.momentum[p]!;
-    this.momentum[o + 1] = list.momentum[p + 1]!;
-    this.momentum[o + 2] = list.momentum[p + 2]!;
-    this.momentum[o + 3] = list.momentum[p + 3]!;
-  }
-
-  private move(from: number, to: number): void {
-    this.pt[to] = this.pt[from]!;
-    this.eta[to] = this.eta[from]!;
-    this.phi[to] = this.phi[from]!;
-    this.charge[to] = this.charge[from]!;
-    this.label[to] = this.label[from]!;
-    const m = this.momentum;
-    const a = 4 * from;
-    const b = 4 * to;
-    m[b] = m[a]!;
-    m[b + 1] = m[a + 1]!;
-    m[b + 2] = m[a + 2]!;
-    m[b + 3] = m[a + 3]!;
-  }
-
-  private grow(): void {
-    const n = 2 * this.pt.length;
-    const widen = <T extends Float64Array | Int8Array | Uint8Array>(a: T, size: number): T => {
-      const b = new (a.constructor as new (n: number) => T)(size);
-      b.set(a);
-      return b;
-    };
-    this.pt = widen(this.pt, n);
-    this.eta = widen(this.eta, n);
-    this.phi = widen(this.phi, n);
-    this.charge = widen(this.charge, n);
-    this.label = widen(this.label, n);
-    this.momentum = widen(this.momentum, 4 * n);
-  }
-}
-
-/** Keep-flags for one input list, grown on demand (never per event in steady state). */
-class Flags {
-  keep = new Uint8Array(16);
-  reset(size: number): Uint8Array {
-    if (this.keep.length < size) this.keep = new Uint8Array(2 * size);
-    return this.keep;
-  }
-}
-
-const TWO_PI = 2 * Math.PI;
-
-/**
- * Whether two directions lie closer than Delta R = sqrt(cone2):
- * Delta R^2 = Delta eta^2 + Delta phi^2 with Delta phi folded into (-pi, pi]
- * (same as physics/fourVector deltaR, without the square root; azimuths are
- * in (-pi, pi], so one fold suffices).
- */
-function within(eta1: number, phi1: number, eta2: number, phi2: number, cone2: number): boolean {
-  const dEta = eta1 - eta2;
-  const dEta2 = dEta * dEta;
-  if (dEta2 >= cone2) return false;
-  let dPhi = phi1 - phi2;
-  if (dPhi > Math.PI) dPhi -= TWO_PI;
-  else if (dPhi <= -Math.PI) dPhi += TWO_PI;
-  return dEta2 + dPhi * dPhi < cone2;
-}
-
-/** Whether object `i` of `list` lies within `cone` of any kept object of `others`. */
-function nearKept(list: ObjectList, i: number, others: ObjectList, keep: Uint8Array, cone: number): boolean {
-  const eta = list.eta[i]!;
-  const phi = list.phi[i]!;
-  const cone2 = cone * cone;
-  const oEta = others.eta;
-  const oPhi = others.phi;
-  for (let j = 0; j < others.size; j++) {
-    if (keep[j] === 1 && within(eta, phi, oEta[j]!, oPhi[j]!, cone2)) return true;
-  }
-  return false;
-}
-
-/** Sum of pT of the objects of `others` within `cone` of object `i` of `list` (skipping `i` itself when the lists are one). */
-function coneSum(list: ObjectList, i: number, others: ObjectList, cone: number): number {
-  const eta = list.eta[i]!;
-  const phi = list.phi[i]!;
-  const cone2 = cone * cone;
-  const oEta = others.eta;
-  const oPhi = others.phi;
-  let sum = 0;
-  for (let j = 0; j < others.size; j++) {
-    if (others === list && j === i) continue;
-    if (within(eta, phi, oEta[j]!, oPhi[j]!, cone2)) sum += others.pt[j]!;
-  }
-  return sum;
 }
 
 /**
@@ -309,28 +196,4 @@ export class AnalysisObjects {
     }
     return kept;
   }
-}
-
-/** Sets keep[i] = 1 for objects passing the thresholds, 0 otherwise; returns how many pass. */
-function markThresholds(list: ObjectList, cuts: KinematicThresholds, keep: Uint8Array): number {
-  let n = 0;
-  const minPt = cuts.minPt;
-  const maxAbsEta = cuts.maxAbsEta;
-  for (let i = 0; i < list.size; i++) {
-    const pass = list.pt[i]! >= minPt && Math.abs(list.eta[i]!) <= maxAbsEta;
-    keep[i] = pass ? 1 : 0;
-    if (pass) n++;
-  }
-  return n;
-}
-
-/** Clears the keep-flag of kept objects of `list` lying within `cone` of a kept object of `others`; returns how many of `list` stay. */
-function removeNear(list: ObjectList, keep: Uint8Array, others: ObjectList, othersKeep: Uint8Array, cone: number): number {
-  let kept = 0;
-  for (let i = 0; i < list.size; i++) {
-    if (keep[i] !== 1) continue;
-    if (nearKept(list, i, others, othersKeep, cone)) keep[i] = 0;
-    else kept++;
-  }
-  return kept;
 }
