@@ -4,6 +4,7 @@
  * (of weights, of squared weights, of events), so runs over separate chunks
  * of events merge exactly (`mergeSelectionResults`).
  */
+import { TamisError } from '../errors.js';
 
 /** A weighted count and what follows from it. */
 export interface WeightedCount {
@@ -137,6 +138,10 @@ export function mergeSelectionResults(parts: readonly SelectionResults[], overla
   let merged = parts[0]!;
   for (let p = 1; p < parts.length; p++) {
     const next = parts[p]!;
+    const ids = (r: SelectionResults) => r.analyses.map((a) => `${a.id}:${a.regions.length}:${a.steps.length}`).join(',');
+    if (ids(next) !== ids(merged)) {
+      throw new TamisError('bad_input', `cannot merge selection results of different analyses: [${merged.analyses.map((a) => a.id).join(', ')}] and [${next.analyses.map((a) => a.id).join(', ')}]`);
+    }
     merged = { events: merged.events + next.events, analyses: merged.analyses.map((a, i) => mergeAnalysis(a, next.analyses[i]!, overlapExamples)) };
   }
   return merged;

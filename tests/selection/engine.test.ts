@@ -114,6 +114,11 @@ describe('selection engine on a constructed sample', () => {
     expect(merged.overlaps).toEqual(result.overlaps);
     expectClose(merged.steps[0]!.efficiencyError, result.steps[0]!.efficiencyError);
   });
+
+  it('refuses to merge results of different analyses', () => {
+    const other = parseAnalysis(ANALYSIS.replace('id: engine-test', 'id: other'), 'o.yaml', { checkFiles: false });
+    expect(() => mergeSelectionResults([createSelection([analysis]).results(), createSelection([other]).results()])).toThrow(/cannot merge selection results of different analyses/);
+  });
 });
 
 describe('selection engine: statistics of unit-weight samples', () => {

@@ -161,3 +161,37 @@ describe('object definitions: thresholds, isolation, overlap removal, b-jets', (
     expect([v.n_jets, v.n_bjets]).toEqual([2, 1]);
   });
 });
+
+describe('missing momentum of a detector-reconstructed event with no invisible particle', () => {
+  it('is the smeared imbalance the detector reports: non-zero, and small next to the visible momenta (200 seeded reconstructions)', async () => {
+    const { createDetector } = await import('../../src/detector/detector.js');
+    const { findDetectorProfile } = await import('../../src/detector/profile/builtInProfiles.js');
+    const { RecoEvent } = await import('../../src/detector/recoEvent.js');
+    const { EventRecord, STATUS_FINAL, STATUS_INCOMING } = await import('../../src/generator/eventRecord.js');
+    const { setPtEtaPhiM } = await import('../../src/physics/fourVector.js');
+    const { RandomStream } = await import('../../src/physics/random.js');
+    const record = new EventRecord();
+    record.add(2, STATUS_INCOMING, -1, -1, 0, 0, 400, 400, 0);
+    record.add(-2, STATUS_INCOMING, -1, -1, 0, 0, -400, 400, 0);
+    // mu+ mu- and two light quarks, balanced in the transverse plane: no invisible particle at all.
+    const p = new Float64Array(4);
+    for (const [id, pt, eta, phi] of [[13, 60, 0.4, 0], [-13, 60, -0.3, Math.PI], [1, 120, 1.0, Math.PI / 2], [-1, 120, -1.2, -Math.PI / 2]] as const) {
+      setPtEtaPhiM(p, 0, pt, eta, phi, 0);
+      record.add(id, STATUS_FINAL, 0, 1, p[0]!, p[1]!, p[2]!, p[3]!, 0);
+    }
+    const detector = createDetector(findDetectorProfile('generic-13tev'));
+    const reco = new RecoEvent();
+    const values: number[] = [];
+    for (let k = 0; k < 200; k++) {
+      detector.reconstruct(record, RandomStream.forStream(8, k), reco);
+      const v = variablesOfEvent(reco);
+      expectClose(v.met!, Math.hypot(reco.metX, reco.metY), { rel: 1e-12 });
+      values.push(v.met!);
+    }
+    values.sort((a, b) => a - b);
+    // Resolution-driven imbalance (common practice: jet resolution ~10% at 120 GeV, a soft term of a few GeV).
+    expect(values[0]!).toBeGreaterThan(0);
+    expect(values[100]!).toBeGreaterThan(2);
+    expect(values[100]!).toBeLessThan(40);
+  });
+});
