@@ -21,7 +21,7 @@
 import { TamisError } from '../../errors.js';
 import type { PartonDensity } from '../partonDensity.js';
 import { COLUMN_COUNT, OUTPUT_SLOT_OF_COLUMN, columnOfFlavour } from './flavours.js';
-import { InterpolationAxis, newStencil } from './lagrangeStencil.js';
+import { InterpolationAxis, VALUE_SLOT, newStencil } from './lagrangeStencil.js';
 
 /** The numbers a grid is made of. */
 export interface DensityGridData {
@@ -76,9 +76,9 @@ export class InterpolatedDensityGrid implements PartonDensity {
   private readonly thresholdRow: Int32Array;
   private readonly xStencil = newStencil();
   private readonly qStencil = newStencil();
-  private lnQ2 = 0;
-  private lastX = Number.NaN;
-  private lastQ = Number.NaN;
+  /** The x and Q of the current stencils (NaN before the first lookup). */
+  private readonly lastPoint = Float64Array.of(Number.NaN, Number.NaN);
+  private readonly scratch = new Float64Array(1);
 
   constructor(name: string, data: DensityGridData, coupling: (q: number) => number) {
     const nx = data.x.length;
@@ -105,23 +105,30 @@ export class InterpolatedDensityGrid implements PartonDensity {
     const column = columnOfFlavour(flavour);
     if (column < 0 || !(x > 0 && x < 1)) return 0;
     this.prepare(x, q);
-    return this.interpolate(column);
+    this.interpolateInto(column, this.scratch, 0);
+    return this.scratch[0]!;
   }
 
   /** x f(x, Q) for flavours -6..6 into out[flavour + 6] (index 6 the gluon; top slots 0). */
   xfxAll(x: number, q: number, out: Float64Array): void {
     out[0] = 0;
     out[12] = 0;
-    const inside = x > 0 && x < 1;
-    if (inside) this.prepare(x, q);
-    for (let column = 0; column < COLUMN_COUNT; column++) out[OUTPUT_SLOT_OF_COLUMN[column]!] = inside ? this.interpolate(column) : 0;
+    if (!(x > 0 && x < 1)) {
+      out.fill(0, 0, 13);
+      return;
+    }
+    this.prepare(x, q);
+    for (let column = 0; column < COLUMN_COUNT; column++) this.interpolateInto(column, out, OUTPUT_SLOT_OF_COLUMN[column]!);
   }
 
   /** x f(x, Q) for the 11 grid columns (order of FLAVOUR_KEYS) into out[0..10]. */
   xfxColumns(x: number, q: number, out: Float64Array): void {
-    const inside = x > 0 && x < 1;
-    if (inside) this.prepare(x, q);
-    for (let column = 0; column < COLUMN_COUNT; column++) out[column] = inside ? this.interpolate(column) : 0;
+    if (!(x > 0 && x < 1)) {
+      out.fill(0, 0, COLUMN_COUNT);
+      return;
+    }
+    this.prepare(x, q);
+    for (let column = 0; column < COLUMN_COUNT; column++) this.interpolateInto(column, out, column);
   }
 
   alphaS(q: number): number {
@@ -169,30 +176,40 @@ export class InterpolatedDensityGrid implements PartonDensity {
    * phase-space point share Q; several flavours share x) reuses the previous stencil.
    */
   private prepare(x: number, q: number): void {
-    if (x !== this.lastX) {
+    const last = this.lastPoint;
+    if (x !== last[0]) {
       const t = Math.log(x / (1 - x));
       const xNodes = this.xAxis.nodes;
-      if (t >= xNodes[0]! && t <= xNodes[xNodes.length - 1]!) this.xAxis.fill(t, this.xStencil);
-      else this.xAxis.fillLinearEdge(t, this.xStencil);
-      this.lastX = x;
+      this.xStencil.weights[VALUE_SLOT] = t;
+      if (t >= xNodes[0]! && t <= xNodes[xNodes.length - 1]!) this.xAxis.fill(this.xStencil);
+      else this.xAxis.fillLinearEdge(this.xStencil);
+      last[0] = x;
     }
-    if (q !== this.lastQ) {
+    if (q !== last[1]) {
       const qNodes = this.qAxis.nodes;
       let lnQ2 = Math.log(q * q);
       if (!(lnQ2 >= qNodes[0]!)) lnQ2 = qNodes[0]!;
       else if (lnQ2 > qNodes[qNodes.length - 1]!) lnQ2 = qNodes[qNodes.length - 1]!;
-      this.lnQ2 = lnQ2;
-      this.qAxis.fill(lnQ2, this.qStencil);
-      this.lastQ = q;
+      this.qStencil.weights[VALUE_SLOT] = lnQ2;
+      this.qAxis.fill(this.qStencil);
+      last[1] = q;
     }
   }
 
-  private interpolate(column: number): number {
+  /**
+   * Writes the interpolated x f of one column to out[slot]. Results go to an array rather
+   * than a return value: V8 boxes a double returned from a call it does not inline, and
+   * that allocation per column would dominate a lookup.
+   */
+  private interpolateInto(column: number, out: Float64Array, slot: number): void {
     const thr = this.thresholdRow[column]!;
     let factor = 1;
     if (thr >= 0) {
-      factor = this.lnQ2 - this.qAxis.nodes[thr]!;
-      if (!(factor > 0)) return 0;
+      factor = this.qStencil.weights[VALUE_SLOT]! - this.qAxis.nodes[thr]!;
+      if (!(factor > 0)) {
+        out[slot] = 0;
+        return;
+      }
     }
     const logs = this.logValues[column]!;
     const nx = this.xAxis.nodes.length;
@@ -219,11 +236,11 @@ export class InterpolatedDensityGrid implements PartonDensity {
       }
     }
     // A zero in the stencil makes the sum infinite or NaN: fall back to values.
-    if (sum > Number.NEGATIVE_INFINITY && sum < Number.POSITIVE_INFINITY) return Math.exp(sum) * factor;
-    return this.interpolateValues(column);
+    if (sum > Number.NEGATIVE_INFINITY && sum < Number.POSITIVE_INFINITY) out[slot] = Math.exp(sum) * factor;
+    else this.interpolateValuesInto(column, out, slot);
   }
 
-  private interpolateValues(column: number): number {
+  private interpolateValuesInto(column: number, out: Float64Array, slot: number): void {
     const values = this.data.values[column]!;
     const nx = this.xAxis.nodes.length;
     const xs = this.xStencil;
@@ -233,6 +250,6 @@ export class InterpolatedDensityGrid implements PartonDensity {
       const row = (qs.first + b) * nx + xs.first;
       for (let a = 0; a < xs.size; a++) sum += qs.weights[b]! * xs.weights[a]! * values[row + a]!;
     }
-    return sum > 0 ? sum : 0;
+    out[slot] = sum > 0 ? sum : 0;
   }
 }

@@ -7,8 +7,18 @@
 
 /** Largest stencil: four nodes, cubic interpolation. */
 export const STENCIL_SIZE = 4;
+/** Upper bound on the bucket table of an axis (the lookup stays correct beyond it, just slower). */
+const MAX_BUCKETS = 1 << 16;
 
-/** A stencil: first node index, number of nodes and their weights (reused buffer). */
+/** Slot of `Stencil.weights` that holds the coordinate the stencil is for. */
+export const VALUE_SLOT = STENCIL_SIZE;
+
+/**
+ * A stencil: first node index, number of nodes, and their weights in a reused buffer
+ * whose slot VALUE_SLOT holds the coordinate. Doubles live in the typed array because
+ * V8 allocates a box for a double stored in an object field or passed to a call it does
+ * not inline, and a lookup must not allocate.
+ */
 export interface Stencil {
   first: number;
   size: number;
@@ -16,7 +26,7 @@ export interface Stencil {
 }
 
 export function newStencil(): Stencil {
-  return { first: 0, size: 0, weights: new Float64Array(STENCIL_SIZE) };
+  return { first: 0, size: 0, weights: new Float64Array(STENCIL_SIZE + 1) };
 }
 
 /**
@@ -29,8 +39,12 @@ export class InterpolationAxis {
   private readonly segmentLo: Int32Array;
   private readonly segmentHi: Int32Array;
   private readonly inverseDenominators: Float64Array;
-  /** Node spacing when the nodes are uniform (a direct index instead of a search), else 0. */
-  private readonly uniformStep: number;
+  /**
+   * Interval index at the left edge of each of many equal buckets no wider than the
+   * smallest node spacing: an interval lookup is one index and at most one step.
+   */
+  private readonly bucketInterval: Int32Array;
+  private readonly bucketsPerUnit: number;
 
   /** `segmentStarts` lists node indices that begin a new segment (the node is shared by both). */
   constructor(nodes: Float64Array, segmentStarts: readonly number[] = []) {
@@ -58,10 +72,18 @@ export class InterpolationAxis {
         }
       }
     }
-    let uniform = n > 2 && starts.length === 2;
-    const step = n > 1 ? (nodes[n - 1]! - nodes[0]!) / (n - 1) : 0;
-    for (let k = 1; uniform && k < n; k++) uniform = Math.abs(nodes[k]! - nodes[k - 1]! - step) <= 1e-9 * Math.abs(step);
-    this.uniformStep = uniform ? step : 0;
+    let smallest = Infinity;
+    for (let k = 1; k < n; k++) smallest = Math.min(smallest, nodes[k]! - nodes[k - 1]!);
+    const range = n > 1 ? nodes[n - 1]! - nodes[0]! : 0;
+    const buckets = n > 1 ? Math.min(MAX_BUCKETS, Math.ceil(range / smallest) + 1) : 1;
+    this.bucketsPerUnit = n > 1 ? buckets / range : 0;
+    this.bucketInterval = new Int32Array(buckets);
+    let k = 0;
+    for (let b = 0; b < buckets; b++) {
+      const left = nodes[0]! + b / this.bucketsPerUnit;
+      while (k < n - 2 && nodes[k + 1]! <= left) k++;
+      this.bucketInterval[b] = k;
+    }
   }
 
   /** Index k of the interval [k, k+1] that holds `value`, clamped to the first and last interval. */
@@ -69,27 +91,19 @@ export class InterpolationAxis {
     const nodes = this.nodes;
     const last = nodes.length - 2;
     if (last < 0) return 0;
-    if (this.uniformStep > 0) {
-      const k = Math.floor((value - nodes[0]!) / this.uniformStep);
-      if (k < 0) return 0;
-      if (k > last) return last;
-      // Guard against rounding at node values.
-      if (value < nodes[k]!) return k > 0 ? k - 1 : 0;
-      if (k < last && value >= nodes[k + 1]!) return k + 1;
-      return k;
-    }
-    let a = 0;
-    let b = last + 1;
-    while (b - a > 1) {
-      const mid = (a + b) >> 1;
-      if (nodes[mid]! <= value) a = mid;
-      else b = mid;
-    }
-    return a;
+    const b = Math.floor((value - nodes[0]!) * this.bucketsPerUnit);
+    if (!(b >= 0)) return 0;
+    if (b >= this.bucketInterval.length) return last;
+    let k = this.bucketInterval[b]!;
+    // A bucket holds at most one node (more only if MAX_BUCKETS capped it); the second loop guards rounding.
+    while (k < last && value >= nodes[k + 1]!) k++;
+    while (k > 0 && value < nodes[k]!) k--;
+    return k;
   }
 
-  /** Fills `stencil` with the Lagrange weights at `value` (which should lie inside the axis' range). */
-  fill(value: number, stencil: Stencil): void {
+  /** Fills `stencil` with the Lagrange weights at its coordinate (which should lie inside the axis' range). */
+  fill(stencil: Stencil): void {
+    const value = stencil.weights[VALUE_SLOT]!;
     const nodes = this.nodes;
     if (nodes.length === 1) {
       stencil.first = 0;
@@ -127,8 +141,9 @@ export class InterpolationAxis {
     }
   }
 
-  /** Two-node linear stencil on the first or last interval, for extrapolation beyond the nodes. */
-  fillLinearEdge(value: number, stencil: Stencil): void {
+  /** Two-node linear stencil on the first or last interval at the stencil's coordinate, for extrapolation beyond the nodes. */
+  fillLinearEdge(stencil: Stencil): void {
+    const value = stencil.weights[VALUE_SLOT]!;
     const nodes = this.nodes;
     const first = value < nodes[0]! ? 0 : nodes.length - 2;
     const n0 = nodes[first]!;
