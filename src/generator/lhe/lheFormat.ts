@@ -56,6 +56,8 @@ export const LHE_MAX_PARTICLES = 10_000;
  * formatLheReal(-0.5, 4) // '-5.000e-01'
  */
 export function formatLheReal(x: number, digits = 10): string {
+  if (x === 0) return digits === 10 ? ' 0.000000000e+00' : digits === 4 ? ' 0.000e+00' : ` ${(0).toExponential(digits - 1)}0`;
+  if (x === 9 && digits === 4) return ' 9.000e+00'; // SPINUP "unknown", on almost every line
   const s = x.toExponential(digits - 1);
   const e = s.indexOf('e');
   const exponent = s.length - e - 2 < 2 ? `${s[e + 1]}0${s.slice(e + 2)}` : s.slice(e + 1);
