@@ -9,7 +9,7 @@
  * point at the right line.
  */
 import { readFileSync } from 'node:fs';
-import { LineCounter, isScalar, parseDocument, type Document, type Node } from 'yaml';
+import { LineCounter, isMap, isScalar, parseDocument, type Document, type Node } from 'yaml';
 import type { z } from 'zod';
 import { TamisError, type SourceLocation } from '../errors.js';
 
@@ -89,7 +89,7 @@ export function parseYamlText<S extends z.ZodType>(text: string, file: string, s
   if (!result.success) {
     const issue = firstIssue(result.error.issues as unknown as ZodIssueLike[]);
     const unknownKey = issue.code === 'unrecognized_keys' ? issue.keys?.[0] : undefined;
-    const where = locate(unknownKey === undefined ? issue.path : [...issue.path, unknownKey], undefined);
+    const where = unknownKey === undefined ? locate(issue.path, undefined) : locateKey(doc, lineCounter, file, issue.path, unknownKey);
     const more = result.error.issues.length > 1 ? ` (and ${result.error.issues.length - 1} more problem${result.error.issues.length > 2 ? 's' : ''})` : '';
     throw new TamisError('schema', describeIssue(issue, raw) + more, { ...where, suggestion: suggestionFor(issue, schema) });
   }
@@ -105,6 +105,21 @@ function lineOfOffset(text: string, offset: number): number {
   let line = 1;
   for (let i = 0; i < offset && i < text.length; i++) if (text.charCodeAt(i) === 10) line++;
   return line;
+}
+
+/** Location of the key `key` itself (not its value) inside the mapping at `path`. */
+function locateKey(doc: Document, lineCounter: LineCounter, file: string, path: KeyPath, key: string): SourceLocation {
+  const parent = path.length === 0 ? doc.contents : doc.getIn(path, true);
+  if (isMap(parent)) {
+    for (const item of parent.items) {
+      const k = item.key;
+      if (isScalar(k) && String(k.value) === key && k.range) {
+        const pos = lineCounter.linePos(k.range[0]);
+        return { file, line: pos.line, column: pos.col, key: formatKeyPath([...path, key]) };
+      }
+    }
+  }
+  return locateInDocument(doc, lineCounter, file, [...path, key], undefined);
 }
 
 function locateInDocument(doc: Document, lineCounter: LineCounter, file: string, path: KeyPath, offset: number | undefined): SourceLocation {
@@ -141,9 +156,18 @@ interface ZodIssueLike {
   errors?: ZodIssueLike[][];
 }
 
-/** The issue to report: the first one, descending into unions to the branch that got furthest. */
+/**
+ * The issue to report: the first one, descending into unions to the branch that
+ * got furthest; a missing key next to an unknown key is most likely a typo, so
+ * the unknown key (which gets a "did you mean" hint) is reported instead.
+ */
 function firstIssue(issues: ZodIssueLike[]): ZodIssueLike {
-  const issue = issues[0]!;
+  let issue = issues[0]!;
+  if (issue.code === 'invalid_type' && issue.path.length > 0) {
+    const parent = issue.path.slice(0, -1);
+    const typo = issues.find((i) => i.code === 'unrecognized_keys' && i.path.length === parent.length && i.path.every((p, k) => p === parent[k]));
+    if (typo) issue = typo;
+  }
   if (issue.code === 'invalid_union' && issue.errors && issue.errors.length > 0) {
     // Prefer a branch whose problem lies deeper (the user chose that branch).
     let best: ZodIssueLike | undefined;
@@ -182,6 +206,7 @@ function describeIssue(issue: ZodIssueLike, raw: unknown): string {
   switch (issue.code) {
     case 'invalid_type':
       if (value === undefined) return `missing required key, expected ${issue.expected ?? 'a value'}`;
+      if (issue.expected === 'number' && typeof value === 'number') return `expected a finite number, got ${value}`;
       return `expected ${issue.expected === 'object' ? 'a mapping' : issue.expected === 'array' ? 'a list' : issue.expected}, got ${describeValue(value)}`;
     case 'too_small':
       if (issue.origin === 'array') return `expected at least ${String(issue.minimum)} entr${issue.minimum === 1 ? 'y' : 'ies'}, got ${Array.isArray(value) ? value.length : 0}`;

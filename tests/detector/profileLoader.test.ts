@@ -142,8 +142,8 @@ describe('detector profile errors name file, line and key', () => {
     const e = errorOf(edited('response_tail:', 'response_tails:'));
     expect(e.message).toBe('unknown key "response_tails"');
     expect(e.key).toBe('jets.response_tails');
-    // the shared locator points at the key's value, a mapping that starts on the next line
-    expect(e.line).toBe(lineOf('response_tail:') + 1);
+    // the error points at the misspelt key itself
+    expect(e.line).toBe(lineOf('response_tail:'));
     expect(e.suggestion).toMatch(/did you mean "response_tail"\?/);
   });
   it('a missing key', () => {

@@ -81,3 +81,21 @@ describe('helpers', () => {
     expect(editDistance('backgorund', 'background')).toBe(2);
   });
 });
+
+describe('reporting of typical mistakes', () => {
+  it('reports a misspelt required key as an unknown key at the key itself, with a suggestion', () => {
+    try {
+      parseYamlText('id: x\nregions:\n  - name: a\n    observed: 3\n    backgrund:\n      2\n', 'a.yaml', File);
+      expect.fail('expected an error');
+    } catch (error) {
+      const e = error as TamisError;
+      expect(e.message).toMatch(/unknown key "backgrund"/);
+      expect(e.line).toBe(5);
+      expect(e.column).toBe(5);
+      expect(e.suggestion).toMatch(/did you mean "background"/);
+    }
+  });
+  it('says "expected a finite number" for .inf', () => {
+    expect(() => parseYamlText('id: x\nregions:\n  - {name: a, observed: 1, background: .inf}\n', 'a.yaml', File)).toThrow(/expected a finite number, got Infinity/);
+  });
+});

@@ -69,7 +69,7 @@ describe('analysis loader: a valid file', () => {
 describe('analysis loader: every error kind names file, line, column and key', () => {
   const cases: { what: string; text: string; message: RegExp; line: number; column: number; key?: string }[] = [
     { what: 'YAML syntax', text: edit('  - name: sr-b\n', '  - name: [sr-b\n'), message: /not valid YAML/, line: 18, column: 5 },
-    { what: 'unknown key', text: edit('    background: 3.2', '    background: 3.2\n    n95_observd: 6.1'), message: /unknown key "n95_observd"/, line: 16, column: 18, key: 'regions[0].n95_observd' },
+    { what: 'unknown key', text: edit('    background: 3.2', '    background: 3.2\n    n95_observd: 6.1'), message: /unknown key "n95_observd"/, line: 16, column: 5, key: 'regions[0].n95_observd' },
     { what: 'region without yields', text: edit('    observed: 1\n    background: 0.9\n    background_uncertainty: 0.4\n', ''), message: /missing required key, expected number/, line: 17, column: 5, key: 'regions[1].observed' },
     { what: 'negative background', text: edit('background: 3.2', 'background: -1.2'), message: /must be >= 0, got number -1.2/, line: 15, column: 17, key: 'regions[0].background' },
     { what: 'negative uncertainty', text: edit('background_uncertainty: 0.4', 'background_uncertainty: -0.4'), message: /must be >= 0, got number -0.4/, line: 21, column: 29, key: 'regions[1].background_uncertainty' },
