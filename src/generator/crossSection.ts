@@ -15,7 +15,7 @@ import { TamisError } from '../errors.js';
 import type { PartonDensity } from '../physics/partonDensity.js';
 import { lesHouchesToyDensities } from '../physics/pdf/index.js';
 import { integrateAtScale, integrateChannel, type ChannelIntegrationOptions } from './channelIntegration.js';
-import type { Model } from './model/types.js';
+import type { Model, ProductionChannel } from './model/types.js';
 
 /** Collider energies tamis is commonly run at (TeV); any other positive value works too. */
 export const STANDARD_ENERGIES_TEV = [7, 8, 13, 13.6, 14] as const;
@@ -50,6 +50,8 @@ export interface ChannelCrossSection {
   /** K x sigma at scale factors x0.5 and x2, pb. */
   sigmaHalfScalePb: number;
   sigmaDoubleScalePb: number;
+  /** The central scale mu_F = mu_R: a number in GeV, or "pair mass" for the dynamic choice. */
+  scale: string;
   /** Integrand evaluations of the central value. */
   calls: number;
   /** chi^2 per degree of freedom of the production iterations (about 1 when healthy). */
@@ -75,6 +77,14 @@ export interface CrossSectionResult {
   targetRelativeError: number;
   /** True when every open channel reached the target relative error. */
   reachedTarget: boolean;
+}
+
+/** The central scale of a channel for reports: "300 GeV" or "pair mass" (times the factor when not 1). */
+function describeScale(channel: ProductionChannel, factor: number): string {
+  const times = factor === 1 ? '' : `${factor} x `;
+  if (channel.scale.kind === 'pair_mass') return `${times}pair mass`;
+  const value = channel.scale.kind === 'fixed' ? channel.scale.value : (channel.firstMass + channel.secondMass) / 2;
+  return `${Number((factor * value).toPrecision(6))} GeV`;
 }
 
 /** Checks the common options; throws `bad_input` TamisErrors naming the option. */
@@ -103,8 +113,9 @@ export function crossSection(model: Model, options: CrossSectionOptions): CrossS
     const central = integrateChannel(channel, base);
     const lo = central.result.integral;
     const k = channel.kFactor;
+    const scale = describeScale(channel, scaleFactor);
     if (central.grid === null) {
-      return { name: channel.name, index: channel.index, kFactor: k, sigmaPb: 0, errorPb: 0, sigmaLoPb: 0, scaleBandPb: [0, 0], sigmaHalfScalePb: 0, sigmaDoubleScalePb: 0, calls: 0, chi2PerDof: 0, open: false };
+      return { name: channel.name, index: channel.index, kFactor: k, sigmaPb: 0, errorPb: 0, sigmaLoPb: 0, scaleBandPb: [0, 0], sigmaHalfScalePb: 0, sigmaDoubleScalePb: 0, scale, calls: 0, chi2PerDof: 0, open: false };
     }
     if (central.result.error > targetRelativeError * Math.abs(lo)) reachedTarget = false;
     const half = integrateAtScale(central, { ...base, scaleFactor: 0.5 * scaleFactor }).integral;
@@ -119,6 +130,7 @@ export function crossSection(model: Model, options: CrossSectionOptions): CrossS
       scaleBandPb: [k * Math.min(lo, half, double), k * Math.max(lo, half, double)],
       sigmaHalfScalePb: k * half,
       sigmaDoubleScalePb: k * double,
+      scale,
       calls: central.result.calls,
       chi2PerDof: central.result.chi2PerDof,
       open: true,

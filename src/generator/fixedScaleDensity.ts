@@ -54,11 +54,16 @@ export class FixedScaleDensity {
 
   /** x f(x, q) for all flavours into `out[flavour + 6]`, like `PartonDensity.xfxAll`. */
   xfxAll(x: number, out: Float64Array): void {
+    this.xfxAllAt(x, x > 0 && x < 1 ? Math.log(x / (1 - x)) : 0, out);
+  }
+
+  /** As `xfxAll`, with t = ln(x / (1 - x)) already known (saves a logarithm in hot loops). */
+  xfxAllAt(x: number, t: number, out: Float64Array): void {
     if (!(x > 0 && x < X_TOP)) {
       this.pdf.xfxAll(x, this.q, out);
       return;
     }
-    const u = (Math.log(x / (1 - x)) - this.t0) / STEP;
+    const u = (t - this.t0) / STEP;
     if (!(u >= 1)) {
       // Below the tabulated range: ask the densities.
       this.pdf.xfxAll(x, this.q, out);

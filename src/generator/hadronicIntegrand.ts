@@ -62,8 +62,10 @@ export class HadronicIntegrand {
   readonly termParton1: Int32Array;
   readonly termParton2: Int32Array;
   readonly termConjugate: Int8Array;
-  /** Per term: contribution to the last evaluated weight (pb). */
+  /** Per term: share of the last evaluated point (the terms sum to `termTotal`; the weight is `termTotal` x the Jacobian). */
   readonly termWeight: Float64Array;
+  /** Sum of `termWeight` at the last evaluated point. */
+  termTotal = 0;
   /**
    * Kinematics of the last evaluated point, at the POINT_* indices: s (GeV^2), y,
    * cos theta, x1, x2, scale (GeV). A typed array rather than fields, so that
@@ -77,10 +79,11 @@ export class HadronicIntegrand {
   private readonly table: FixedScaleDensity | null;
   private readonly termFlavour1: Int32Array;
   private readonly termFlavour2: Int32Array;
-  /** Per term: index of the coefficient triple (0 up-type, 3 down-type) and the sign of cos theta. */
-  private readonly termCoefficient: Int32Array;
-  private readonly termSign: Int8Array;
+  /** Per term: which of the four values in `meValues` it uses (up/down quark, +cos/-cos theta). */
+  private readonly termMatrixElement: Int32Array;
   private readonly termFactor: Float64Array;
+  /** dsigma/dcos theta at the current point: up at +c, up at -c, down at +c, down at -c. */
+  private readonly meValues = new Float64Array(4);
   private readonly xf1 = new Float64Array(13);
   private readonly xf2 = new Float64Array(13);
   private readonly coefficients = new Float64Array(6);
@@ -137,8 +140,7 @@ export class HadronicIntegrand {
     this.termConjugate = Int8Array.from(conj);
     this.termFlavour1 = Int32Array.from(p1, (id) => id + 6);
     this.termFlavour2 = Int32Array.from(p2, (id) => id + 6);
-    this.termCoefficient = Int32Array.from(coeff);
-    this.termSign = Int8Array.from(sign);
+    this.termMatrixElement = Int32Array.from(coeff, (offset, k) => (offset === 0 ? 0 : 2) + (sign[k]! < 0 ? 1 : 0));
     this.termFactor = Float64Array.from(factor);
     this.termWeight = new Float64Array(this.termCount);
   }
@@ -184,28 +186,37 @@ export class HadronicIntegrand {
     point[POINT_SCALE] = q;
     if (x1 >= 1 || x2 >= 1) {
       this.termWeight.fill(0);
+      this.termTotal = 0;
       return 0;
     }
     if (this.table !== null) {
-      this.table.xfxAll(x1, this.xf1);
-      this.table.xfxAll(x2, this.xf2);
+      // ln(x/(1-x)) = ln x - ln(1-x), with ln x1,2 = ln(tau)/2 +- y
+      const halfLnTau = -yMax;
+      this.table.xfxAllAt(x1, halfLnTau + y - Math.log1p(-x1), this.xf1);
+      this.table.xfxAllAt(x2, halfLnTau - y - Math.log1p(-x2), this.xf2);
     } else {
       this.pdf.xfxAll(x1, q, this.xf1);
       this.pdf.xfxAll(x2, q, this.xf2);
     }
-    this.matrixElement.coefficients(s, this.coefficients);
-    // ds/S from the mapping, 2 yMax from y, 2 from cos theta, 1/tau from f = xf/x.
-    const jacobian = (GEV2_TO_PB * 4 * yMax) / (mapping.density(s) * this.s * tau);
     const c = this.coefficients;
+    this.matrixElement.coefficients(s, c);
+    const me = this.meValues;
+    const even = c[0]! + cosTheta * cosTheta * c[2]!;
+    const odd = cosTheta * c[1]!;
+    me[0] = even + odd;
+    me[1] = even - odd;
+    const evenDown = c[3]! + cosTheta * cosTheta * c[5]!;
+    const oddDown = cosTheta * c[4]!;
+    me[2] = evenDown + oddDown;
+    me[3] = evenDown - oddDown;
     let total = 0;
     for (let k = 0; k < this.termCount; k++) {
-      const o = this.termCoefficient[k]!;
-      const ct = this.termSign[k]! * cosTheta;
-      const me = c[o]! + ct * (c[o + 1]! + ct * c[o + 2]!);
-      const w = this.termFactor[k]! * this.xf1[this.termFlavour1[k]!]! * this.xf2[this.termFlavour2[k]!]! * me * jacobian;
+      const w = this.termFactor[k]! * this.xf1[this.termFlavour1[k]!]! * this.xf2[this.termFlavour2[k]!]! * me[this.termMatrixElement[k]!]!;
       this.termWeight[k] = w;
       total += w;
     }
-    return total;
+    this.termTotal = total;
+    // ds/S from the mapping, 2 yMax from y, 2 from cos theta, 1/tau from f = xf/x.
+    return (total * GEV2_TO_PB * 4 * yMax) / (mapping.density(s) * this.s * tau);
   }
 }

@@ -134,15 +134,13 @@ export class HardSampler {
     const maxWeight = channel.info.maxWeight;
     const stats = this.statistics;
     let w = 0;
-    let value = 0;
     for (let trial = 0; ; trial++) {
       if (trial >= MAX_TRIALS_PER_EVENT) throw new TamisError('numeric', `channel ${channel.info.name}: no event accepted in ${MAX_TRIALS_PER_EVENT} trials`);
       this.u[0] = rng.uniform();
       this.u[1] = rng.uniform();
       this.u[2] = rng.uniform();
       const jacobian = grid.map(this.u, this.x, this.bins);
-      value = integrand.evaluate(this.x);
-      w = value * jacobian;
+      w = integrand.evaluate(this.x) * jacobian;
       stats.trials++;
       if (!(w > 0)) continue;
       stats.weightSum += w;
@@ -154,8 +152,8 @@ export class HardSampler {
       if (rng.uniform() * maxWeight < w) break;
     }
     stats.accepted++;
-    // The sub-process, in proportion to its share of the integrand (the terms sum to `value`).
-    const pick = rng.uniform() * value;
+    // The sub-process, in proportion to its share of the point (the terms sum to termTotal).
+    const pick = rng.uniform() * integrand.termTotal;
     let term = 0;
     let running = integrand.termWeight[0]!;
     while (term < integrand.termCount - 1 && pick >= running) running += integrand.termWeight[++term]!;

@@ -84,12 +84,13 @@ function expectedShares(model: Model, channel: number, cosBins: number, massEdge
                 // u3 in the bin of cos theta (to +z) [c, c+1) / cosBins
                 u[2] = (c + 0.5 + 0.5 * GL3.x[k]!) / cosBins;
                 const w = w1 * w2 * ((0.5 * GL3.w[k]!) / cosBins);
-                integrand.evaluate(u);
+                const value = integrand.evaluate(u);
+                if (!(value > 0)) continue;
                 const cosToPlusZ = integrand.lastPoint[POINT_COS_THETA]!;
                 for (let t = 0; t < integrand.termCount; t++) {
                   const toQuark = integrand.termParton1[t]! > 0 ? cosToPlusZ : -cosToPlusZ;
                   const bin = Math.min(cosBins - 1, Math.floor(((toQuark + 1) / 2) * cosBins));
-                  const weight = w * integrand.termWeight[t]!;
+                  const weight = (w * value * integrand.termWeight[t]!) / integrand.termTotal;
                   cos[bin] += weight;
                   mass[b] += weight;
                 }
