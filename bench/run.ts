@@ -11,6 +11,7 @@ const SUITES: readonly (() => Promise<{ benchmarks: Benchmark[] }>)[] = [
   () => import('./detector.js'),
   () => import('./pdf.js'),
   () => import('./selection.js'),
+  () => import('./generator-xsec.js'),
 ];
 
 function formatValue(value: number): string {

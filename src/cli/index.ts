@@ -15,6 +15,7 @@ const COMMANDS: readonly (() => Promise<CommandModule>)[] = [
   () => import('./commands/newAnalysis.js'),
   () => import('./commands/variables.js'),
   () => import('./commands/pdf.js'),
+  () => import('./commands/xsec.js'),
 ];
 
 /** Builds the program with every command registered (exported for tests and docs). */
