@@ -16,7 +16,8 @@ export interface CrossSectionJson {
  * The JSON object of a result (K-factors applied, as in `sigmaPb`).
  *
  * @example
- * crossSectionJson(result).scale_band_pb // [low, high] in pb
+ * crossSectionJson(crossSection(loadModel('data-demo/benchmark.model.yaml'), { energyTeV: 13 })).scale_band_pb
+ * // [0.1226, 0.1353] (pb, rounded)
  */
 export function crossSectionJson(result: CrossSectionResult): CrossSectionJson {
   return {
