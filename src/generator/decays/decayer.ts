@@ -16,8 +16,6 @@
  */
 import { TamisError } from '../../errors.js';
 import { PDG } from '../../physics/constants.js';
-import { setPxPyPzE } from '../../physics/fourVector.js';
-import { threeBodyDecayFlat } from '../../physics/phaseSpace.js';
 import type { RandomStream } from '../../physics/random.js';
 import { STATUS_DECAYED, STATUS_FINAL, type EventRecord } from '../eventRecord.js';
 import { ParticleTable, type DecayTable } from '../particles.js';
@@ -34,7 +32,7 @@ import {
   type CompiledDecays,
 } from './compileDecays.js';
 import { sampleVectorPairMasses, sampleZGammaMass } from './higgsDecay.js';
-import { boostFromRest, restMass, twoBodyAtRest } from './restFrame.js';
+import { boostFromRest, restMass, threeBodyFlatAtRest, twoBodyAtRest } from './restFrame.js';
 import { sampleTauLeptonicAtRest } from './tauDecay.js';
 import { sampleTauVisibleMass, TAU_OTHER_HADRONS } from './tauHadrons.js';
 import { decayTopVA, TopDecayScratch } from './topDecay.js';
@@ -57,6 +55,9 @@ export interface Decayer {
   readonly tables: readonly DecayTable[];
 }
 
+/** Ids below this are looked up in an array. */
+const SMALL_IDS = 128;
+
 /** Tries to find an open channel before declaring a parent too light for every channel. */
 const MAX_CHANNEL_TRIES = 1000;
 
@@ -65,15 +66,19 @@ class ChainDecayer implements Decayer {
   private readonly wTable: number;
   private readonly vMasses = new Float64Array(2);
   private readonly topScratch = new TopDecayScratch();
-  /** Rest-frame scratch: slot 0 the parent at rest, slots 1-3 its daughters. */
+  /** Rest-frame scratch: slots 1-3 hold the daughters in the parent rest frame. */
   private readonly rest = new Float64Array(16);
   private readonly particles: ParticleTable;
   private nextColour = FIRST_COLOUR_TAG;
+
+  /** Table index by |id| for |id| < SMALL_IDS (-1 = stable): spares a Map lookup for SM particles. */
+  private readonly smallIds = new Int32Array(SMALL_IDS).fill(-1);
 
   constructor(particles: ParticleTable, tables: readonly DecayTable[]) {
     this.particles = particles;
     this.c = compileDecays(particles, tables);
     this.wTable = this.c.tableOf.get(PDG.W) ?? -1;
+    for (const [id, t] of this.c.tableOf) if (id < SMALL_IDS) this.smallIds[id] = t;
   }
 
   get tables(): readonly DecayTable[] {
@@ -104,8 +109,9 @@ class ChainDecayer implements Decayer {
   private decayOne(record: EventRecord, i: number, rng: RandomStream): void {
     if (record.status[i] !== STATUS_FINAL) return;
     const id = record.pdgId[i]!;
-    const t = this.c.tableOf.get(id < 0 ? -id : id);
-    if (t === undefined) return;
+    const absId = id < 0 ? -id : id;
+    const t = absId < SMALL_IDS ? this.smallIds[absId]! : (this.c.tableOf.get(absId) ?? -1);
+    if (t < 0) return;
     const c = this.c;
     const anti = id < 0 && c.parentSelfConjugate[t] === 0;
     const parentMass = restMass(record.momentum, i);
@@ -141,15 +147,14 @@ class ChainDecayer implements Decayer {
     record.add(ids[base]!, STATUS_FINAL, i, i, 0, 0, 0, 0, m0);
     record.add(ids[base + 1]!, STATUS_FINAL, i, i, 0, 0, 0, 0, m1);
     if (n === 3) record.add(ids[base + 2]!, STATUS_FINAL, i, i, 0, 0, 0, 0, m2);
-    // Daughters in the parent rest frame (slot 0 = parent at rest), then boosted to the lab.
+    // Daughters in the parent rest frame, then boosted to the lab.
     const rest = this.rest;
     if (kind === KIND_TAU_LEPTONIC) {
       // Record order (l, nubar_l, nu_tau); the matrix element pairs l with nu_tau.
       sampleTauLeptonicAtRest(parentMass, m0, rng, rest, 1, 3, 2);
     } else {
       if (n === 3) {
-        setPxPyPzE(rest, 0, 0, 0, 0, parentMass);
-        threeBodyDecayFlat(rest, 0, m0, m1, m2, rng, rest, 1, 2, 3);
+        threeBodyFlatAtRest(rest, 1, 2, 3, parentMass, m0, m1, m2, rng);
       } else {
         twoBodyAtRest(rest, 1, 2, parentMass, m0, m1, 2 * rng.uniform() - 1, 2 * Math.PI * rng.uniform());
       }

@@ -1,5 +1,6 @@
 /**
- * Decay kinematics in the parent's rest frame and the boost out of it.
+ * Decay kinematics in the parent's rest frame (two- and three-body) and the
+ * boost out of it.
  *
  * The boost is written with the parent's four-momentum and mass instead of
  * its velocity.
@@ -12,6 +13,8 @@
  * machine precision: the rest-frame daughters summing to (M, 0) are boosted to
  * exactly (E, P).
  */
+import { dalitzLimits } from '../../physics/phaseSpace.js';
+import type { RandomStream } from '../../physics/random.js';
 
 /**
  * Boosts vector `k` of `rest` (rest-frame components) into slot `o` of `out`,
@@ -72,4 +75,100 @@ export function twoBodyAtRest(out: Float64Array, i1: number, i2: number, parentM
   out[o2 + 1] = -y;
   out[o2 + 2] = -z;
   out[o2 + 3] = (M2 - a + b) / (2 * parentMass);
+}
+
+const limits = new Float64Array(2);
+
+/**
+ * Three-body decay of a parent at rest with mass `parentMass` from the
+ * Dalitz variables (m12^2, m23^2), with a uniformly random orientation:
+ * particle 3 along a random direction, particle 1 at its fixed angle to 3
+ * and a uniform azimuth about it (the three daughters' plane is then
+ * isotropic: PDG Review, "Kinematics", three-body decays). Writes slots i1,
+ * i2, i3 of `out`; returns false (writing nothing, drawing nothing) if the
+ * point lies outside the Dalitz region.
+ */
+export function threeBodyAtRest(
+  out: Float64Array,
+  i1: number,
+  i2: number,
+  i3: number,
+  parentMass: number,
+  m1: number,
+  m2: number,
+  m3: number,
+  m12sq: number,
+  m23sq: number,
+  rng: RandomStream,
+): boolean {
+  const M2 = parentMass * parentMass;
+  if (m12sq < (m1 + m2) ** 2 || m12sq > (parentMass - m3) ** 2) return false;
+  dalitzLimits(parentMass, m1, m2, m3, m12sq, limits);
+  if (m23sq < limits[0]! || m23sq > limits[1]!) return false;
+  const m13sq = M2 + m1 * m1 + m2 * m2 + m3 * m3 - m12sq - m23sq;
+  // Energies in the parent rest frame: E1 = (M^2 + m1^2 - m23^2) / 2M, E3 = (M^2 + m3^2 - m12^2) / 2M.
+  const e1 = (M2 + m1 * m1 - m23sq) / (2 * parentMass);
+  const e3 = (M2 + m3 * m3 - m12sq) / (2 * parentMass);
+  const p1 = Math.sqrt(Math.max(0, e1 * e1 - m1 * m1));
+  const p3 = Math.sqrt(Math.max(0, e3 * e3 - m3 * m3));
+  // m13^2 = m1^2 + m3^2 + 2 (E1 E3 - p1 p3 cos13)
+  let cos13 = p1 > 0 && p3 > 0 ? (2 * e1 * e3 + m1 * m1 + m3 * m3 - m13sq) / (2 * p1 * p3) : 1;
+  cos13 = cos13 < -1 ? -1 : cos13 > 1 ? 1 : cos13;
+  const sin13 = Math.sqrt(1 - cos13 * cos13);
+  // Direction n of particle 3, uniform on the sphere; (a, b) completes an orthonormal basis.
+  const cz = 2 * rng.uniform() - 1;
+  const sz = Math.sqrt(Math.max(0, 1 - cz * cz));
+  const az = 2 * Math.PI * rng.uniform();
+  const ca = Math.cos(az);
+  const sa = Math.sin(az);
+  const nx = sz * ca;
+  const ny = sz * sa;
+  const nz = cz;
+  // a = d n / d theta, b = n x a: the standard spherical basis (e_theta, e_phi).
+  const ax = cz * ca;
+  const ay = cz * sa;
+  const az2 = -sz;
+  const bx = -sa;
+  const by = ca;
+  // Particle 1 at angle acos(cos13) from n, uniform azimuth psi about n.
+  const psi = 2 * Math.PI * rng.uniform();
+  const u = sin13 * Math.cos(psi);
+  const v = sin13 * Math.sin(psi);
+  const d1x = p1 * (u * ax + v * bx + cos13 * nx);
+  const d1y = p1 * (u * ay + v * by + cos13 * ny);
+  const d1z = p1 * (u * az2 + cos13 * nz);
+  const o1 = 4 * i1;
+  const o2 = 4 * i2;
+  const o3 = 4 * i3;
+  out[o3] = p3 * nx;
+  out[o3 + 1] = p3 * ny;
+  out[o3 + 2] = p3 * nz;
+  out[o3 + 3] = e3;
+  out[o1] = d1x;
+  out[o1 + 1] = d1y;
+  out[o1 + 2] = d1z;
+  out[o1 + 3] = e1;
+  out[o2] = -d1x - p3 * nx;
+  out[o2 + 1] = -d1y - p3 * ny;
+  out[o2 + 2] = -d1z - p3 * nz;
+  out[o2 + 3] = parentMass - e1 - e3;
+  return true;
+}
+
+/**
+ * Three-body decay at rest distributed uniformly in phase space: flat in the
+ * Dalitz plot (dPhi_3 ∝ dm12^2 dm23^2, PDG Review, "Kinematics"), drawn in
+ * the bounding rectangle and kept inside the Dalitz region. The caller checks
+ * the threshold (parentMass > m1 + m2 + m3).
+ */
+export function threeBodyFlatAtRest(out: Float64Array, i1: number, i2: number, i3: number, parentMass: number, m1: number, m2: number, m3: number, rng: RandomStream): void {
+  const lo12 = (m1 + m2) ** 2;
+  const hi12 = (parentMass - m3) ** 2;
+  const lo23 = (m2 + m3) ** 2;
+  const hi23 = (parentMass - m1) ** 2;
+  for (;;) {
+    const m12sq = lo12 + (hi12 - lo12) * rng.uniform();
+    const m23sq = lo23 + (hi23 - lo23) * rng.uniform();
+    if (threeBodyAtRest(out, i1, i2, i3, parentMass, m1, m2, m3, m12sq, m23sq, rng)) return;
+  }
 }

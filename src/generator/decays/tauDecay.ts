@@ -18,18 +18,16 @@
  * the tau rest frame, mean x = 7/10 (tauLeptonEnergyDensity). Tau polarisation
  * is ignored (unpolarised taus): a tamis simplification.
  */
-import { setPxPyPzE } from '../../physics/fourVector.js';
-import { threeBodyFromDalitz } from '../../physics/phaseSpace.js';
 import type { RandomStream } from '../../physics/random.js';
+import { threeBodyAtRest } from './restFrame.js';
 
 /**
- * Samples tau -> l nu nu in the tau rest frame: writes the tau at rest (mass
- * `tauMass`) to slot 0 of `rest` and the charged lepton (mass `leptonMass`),
+ * Samples tau -> l nu nu in the rest frame of a tau of mass `tauMass`: writes
+ * the charged lepton (mass `leptonMass`),
  * the neutrino that pairs with it in p1 . p2 (nu_tau for tau-, nubar_tau for
  * tau+) and the other neutrino to slots `iLepton`, `iPartner`, `iOther`.
  */
 export function sampleTauLeptonicAtRest(tauMass: number, leptonMass: number, rng: RandomStream, rest: Float64Array, iLepton: number, iPartner: number, iOther: number): void {
-  setPxPyPzE(rest, 0, 0, 0, 0, tauMass);
   const bigM2 = tauMass * tauMass;
   const ml2 = leptonMass * leptonMass;
   const half = (bigM2 - ml2) / 2;
@@ -40,7 +38,7 @@ export function sampleTauLeptonicAtRest(tauMass: number, leptonMass: number, rng
     const w = (bigM2 - m12sq) * (m12sq - ml2);
     if (rng.uniform() * wMax > w) continue;
     const m23sq = hi23 * rng.uniform();
-    if (threeBodyFromDalitz(rest, 0, leptonMass, 0, 0, m12sq, m23sq, rng, rest, iLepton, iPartner, iOther)) return;
+    if (threeBodyAtRest(rest, iLepton, iPartner, iOther, tauMass, leptonMass, 0, 0, m12sq, m23sq, rng)) return;
   }
 }
 
