@@ -11,7 +11,7 @@ import { RandomStream } from '../../src/physics/random.js';
 import { EventRecord, STATUS_FINAL, STATUS_INCOMING } from '../../src/generator/eventRecord.js';
 import { prepareHardSampler, reducedMaximum, type HardSampler } from '../../src/generator/hardSampler.js';
 import { HadronicIntegrand, POINT_COS_THETA } from '../../src/generator/hadronicIntegrand.js';
-import { readFileSync } from 'node:fs';
+import { readFileSync, readdirSync } from 'node:fs';
 import { loadModel, parseModel } from '../../src/generator/model/index.js';
 import type { Model } from '../../src/generator/model/types.js';
 import { expectClose } from '../helpers.js';
@@ -47,6 +47,53 @@ function sample(sampler: HardSampler, channel: number, count: number, seed: numb
     pairMass.push(mass);
   }
   return { cosToQuark, pairMass };
+}
+
+/** Largest violations and broken conventions over `count` events (asserted by the caller: expect() per event is slow). */
+function checkEvents(model: Model, sampler: HardSampler, count: number, seed: number) {
+  const record = new EventRecord();
+  const rng = RandomStream.forStream(seed, 1);
+  const table = model.particles;
+  const seenChannels = new Set<number>();
+  let momentumViolation = 0;
+  let massViolation = 0;
+  let chargeViolation = 0;
+  const problems = new Set<string>();
+  for (let n = 0; n < count; n++) {
+    sampler.fill(record, rng);
+    const p = record.momentum;
+    const scale = p[3]! + p[7]!;
+    for (let k = 0; k < 4; k++) momentumViolation = Math.max(momentumViolation, Math.abs(p[k]! + p[4 + k]! - p[8 + k]! - p[12 + k]!) / scale);
+    const channel = model.channels[record.processId]!;
+    seenChannels.add(record.processId);
+    for (const [i, m] of [
+      [2, channel.firstMass],
+      [3, channel.secondMass],
+    ] as const) {
+      const o = 4 * i;
+      const m2 = p[o + 3]! ** 2 - p[o]! ** 2 - p[o + 1]! ** 2 - p[o + 2]! ** 2;
+      massViolation = Math.max(massViolation, Math.abs(m2 - m * m) / p[o + 3]! ** 2);
+      if (record.mass[i] !== m) problems.add('generated mass');
+      if (record.status[i] !== STATUS_FINAL) problems.add('final status');
+      if (record.mother1[i] !== 0 || record.mother2[i] !== 1) problems.add('mothers');
+      if (Math.abs(record.pdgId[i]!) !== Math.abs(i === 2 ? channel.first : channel.second)) problems.add('pair ids');
+    }
+    if (record.size !== 4) problems.add('size');
+    if (record.status[0] !== STATUS_INCOMING || record.status[1] !== STATUS_INCOMING) problems.add('incoming status');
+    // incoming partons: massless along the beams, beam 1 along +z
+    if (p[0] !== 0 || p[1] !== 0 || p[4] !== 0 || p[5] !== 0 || !(p[2]! > 0) || !(p[6]! < 0)) problems.add('incoming momenta');
+    // a quark and an antiquark sharing one colour line
+    const quark = record.pdgId[0]! > 0 ? 0 : 1;
+    if (Math.sign(record.pdgId[0]!) !== -Math.sign(record.pdgId[1]!)) problems.add('q qbar');
+    if (record.colour1[quark] !== 501 || record.colour2[1 - quark] !== 501 || record.colour2[quark] !== 0 || record.colour1[1 - quark] !== 0) problems.add('colour');
+    chargeViolation = Math.max(chargeViolation, Math.abs(table.charge(record.pdgId[0]!) + table.charge(record.pdgId[1]!) - table.charge(record.pdgId[2]!) - table.charge(record.pdgId[3]!)));
+    if (record.weight !== sampler.crossSectionPb) problems.add('weight');
+    const expectedScale = channel.scale.kind === 'pair_mass' ? Math.sqrt(Math.max(0, (p[11]! + p[15]!) ** 2 - (p[10]! + p[14]!) ** 2 - (p[8]! + p[12]!) ** 2 - (p[9]! + p[13]!) ** 2)) : (channel.firstMass + channel.secondMass) / 2;
+    if (Math.abs(record.scale - expectedScale) > 1e-6 * expectedScale) problems.add('scale');
+    if (!(record.alphaQcd > 0.05 && record.alphaQcd < 0.2)) problems.add('alpha_s');
+    if (record.alphaQed !== model.couplings.alpha) problems.add('alpha');
+  }
+  return { momentumViolation, massViolation, chargeViolation, problems: [...problems], channels: [...seenChannels].sort() };
 }
 
 /** 3-point Gauss–Legendre on [-1, 1] (exact for polynomials up to degree 5; Abramowitz and Stegun 25.4). */
@@ -126,52 +173,12 @@ describe('hard events of the demo benchmark', () => {
   const sampler = prepareHardSampler(benchmark, { energyTeV: 13, pdf, seed: 11 });
 
   it('conserves energy and momentum (1e-9 relative), puts the pair on shell, and follows the record conventions', () => {
-    const record = new EventRecord();
-    const rng = RandomStream.forStream(11, 1);
-    const table = benchmark.particles;
-    const seenChannels = new Set<number>();
-    // Largest violations over all events (asserted once at the end: expect() per event is slow).
-    let momentumViolation = 0;
-    let massViolation = 0;
-    let chargeViolation = 0;
-    const problems = new Set<string>();
-    for (let n = 0; n < 20000; n++) {
-      sampler.fill(record, rng);
-      const p = record.momentum;
-      const scale = p[3]! + p[7]!;
-      for (let k = 0; k < 4; k++) momentumViolation = Math.max(momentumViolation, Math.abs(p[k]! + p[4 + k]! - p[8 + k]! - p[12 + k]!) / scale);
-      const channel = benchmark.channels[record.processId]!;
-      seenChannels.add(record.processId);
-      for (const [i, m] of [
-        [2, channel.firstMass],
-        [3, channel.secondMass],
-      ] as const) {
-        const o = 4 * i;
-        const m2 = p[o + 3]! ** 2 - p[o]! ** 2 - p[o + 1]! ** 2 - p[o + 2]! ** 2;
-        massViolation = Math.max(massViolation, Math.abs(m2 - m * m) / p[o + 3]! ** 2);
-        if (record.mass[i] !== m) problems.add('generated mass');
-        if (record.status[i] !== STATUS_FINAL) problems.add('final status');
-        if (record.mother1[i] !== 0 || record.mother2[i] !== 1) problems.add('mothers');
-      }
-      if (record.size !== 4) problems.add('size');
-      if (record.status[0] !== STATUS_INCOMING || record.status[1] !== STATUS_INCOMING) problems.add('incoming status');
-      // incoming partons: massless along the beams, beam 1 along +z
-      if (p[0] !== 0 || p[1] !== 0 || p[4] !== 0 || p[5] !== 0 || !(p[2]! > 0) || !(p[6]! < 0)) problems.add('incoming momenta');
-      // a quark and an antiquark sharing one colour line
-      const quark = record.pdgId[0]! > 0 ? 0 : 1;
-      if (Math.sign(record.pdgId[0]!) !== -Math.sign(record.pdgId[1]!)) problems.add('q qbar');
-      if (record.colour1[quark] !== 501 || record.colour2[1 - quark] !== 501 || record.colour2[quark] !== 0 || record.colour1[1 - quark] !== 0) problems.add('colour');
-      chargeViolation = Math.max(chargeViolation, Math.abs(table.charge(record.pdgId[0]!) + table.charge(record.pdgId[1]!) - table.charge(record.pdgId[2]!) - table.charge(record.pdgId[3]!)));
-      if (record.weight !== sampler.crossSectionPb) problems.add('weight');
-      if (Math.abs(record.scale - (channel.firstMass + channel.secondMass) / 2) > 1e-9) problems.add('scale');
-      if (!(record.alphaQcd > 0.05 && record.alphaQcd < 0.2)) problems.add('alpha_s');
-      if (record.alphaQed !== benchmark.couplings.alpha) problems.add('alpha');
-    }
-    expect(momentumViolation).toBeLessThan(1e-9);
-    expect(massViolation).toBeLessThan(1e-9);
-    expect(chargeViolation).toBeLessThan(1e-12);
-    expect([...problems]).toEqual([]);
-    expect([...seenChannels].sort()).toEqual([0, 1, 2]);
+    const report = checkEvents(benchmark, sampler, 20000, 1);
+    expect(report.momentumViolation).toBeLessThan(1e-9);
+    expect(report.massViolation).toBeLessThan(1e-9);
+    expect(report.chargeViolation).toBeLessThan(1e-12);
+    expect(report.problems).toEqual([]);
+    expect(report.channels).toEqual([0, 1, 2]);
   });
 
   it('gives the same cross section as crossSection for the same seed, and the same events for the same stream', () => {
@@ -245,6 +252,24 @@ describe('hard events of chiral heavy leptons through photon and Z', () => {
     const { pValue } = chiSquare(events.pairMass, massEdges, expected.mass);
     expect(pValue).toBeGreaterThan(1e-3);
   });
+});
+
+describe('hard events of every demo model', () => {
+  const folder = new URL('../../data-demo/', import.meta.url);
+  for (const file of readdirSync(folder).filter((f) => f.endsWith('.model.yaml'))) {
+    it(`${file}: every channel appears; conservation, masses and conventions hold in every event`, () => {
+      const model = loadModel(`data-demo/${file}`);
+      const s = prepareHardSampler(model, { energyTeV: 8, pdf, seed: 31 });
+      const report = checkEvents(model, s, 6000, 2);
+      expect(report.momentumViolation).toBeLessThan(1e-9);
+      expect(report.massViolation).toBeLessThan(1e-9);
+      expect(report.chargeViolation).toBeLessThan(1e-12);
+      expect(report.problems).toEqual([]);
+      // channels below 0.2% of the total may legitimately not show up in 6000 events
+      const expected = s.channels.filter((c) => c.sigmaPb > 0.002 * s.crossSectionPb).map((c) => c.index);
+      for (const c of expected) expect(report.channels).toContain(c);
+    });
+  }
 });
 
 describe('reducedMaximum', () => {
