@@ -5,6 +5,7 @@
  * Infinite or undefined steps fall back to bisection, so the result is always
  * a finite number inside the bracket.
  */
+import { TamisError } from '../errors.js';
 import { bracketNear, checkValue, expandBracketUpward, type Bracket, type RootTolerance, type ValueAndSlope } from './rootFinding.js';
 
 const DEFAULT_ABSOLUTE = 1e-12;
