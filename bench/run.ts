@@ -12,6 +12,7 @@ const SUITES: readonly (() => Promise<{ benchmarks: Benchmark[] }>)[] = [
   () => import('./pdf.js'),
   () => import('./selection.js'),
   () => import('./generator-xsec.js'),
+  () => import('./generator-events.js'),
 ];
 
 function formatValue(value: number): string {

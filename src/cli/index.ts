@@ -16,6 +16,7 @@ const COMMANDS: readonly (() => Promise<CommandModule>)[] = [
   () => import('./commands/variables.js'),
   () => import('./commands/pdf.js'),
   () => import('./commands/xsec.js'),
+  () => import('./commands/generate.js'),
 ];
 
 /** Builds the program with every command registered (exported for tests and docs). */

@@ -1,7 +1,7 @@
 /**
  * The generator: model files, hard processes, cross sections, unweighted hard
- * events, the shared event record and particle table. Decay chains and event
- * files re-export their own APIs from decays/index.ts and lhe/index.ts.
+ * events, the shared event record and particle table; decay chains
+ * (decays/), event generation, and event files (lhe/, CSV).
  */
 export { EventRecord, STATUS_DECAYED, STATUS_FINAL, STATUS_INCOMING } from './eventRecord.js';
 export { ParticleTable, STANDARD_MODEL_PARTICLES, type DecayChannel, type DecayTable, type ParticleInfo } from './particles.js';
@@ -26,3 +26,8 @@ export {
 } from './crossSection.js';
 export { crossSectionJson, type CrossSectionJson } from './crossSectionJson.js';
 export { HardSampler, prepareHardSampler, reducedMaximum, OVERWEIGHT_TOLERANCE, type HardSamplerOptions, type SamplerChannel, type SamplerStatistics } from './hardSampler.js';
+export * from './decays/index.js';
+export * from './lhe/index.js';
+export { CsvEventWriter, CSV_COLUMNS, formatCsvReal } from './csvWriter.js';
+export { EventGenerator, generateEvents, prepareEventGeneration, EVENTS_PER_CHUNK, STREAM_EVENTS, MAX_EVENTS, type EventSink, type GenerationOptions, type GenerationSummary } from './generateEvents.js';
+export { writeEventFile, eventFileFormat, lheInitOf, type EventFileFormat, type WriteEventFileOptions } from './writeEventFile.js';
