@@ -33,7 +33,7 @@ export class EventVariables implements VariableReader {
   /** Value of the variable in `slot` (index in `VARIABLES`) for the current event. */
   value(slot: number): number {
     if (this.stamp[slot] !== this.epoch) {
-      this.values[slot] = COMPUTE[slot]!(this.objects);
+      COMPUTE[slot]!(this.objects, this.values, slot);
       this.stamp[slot] = this.epoch;
     }
     return this.values[slot]!;

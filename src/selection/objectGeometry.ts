@@ -24,32 +24,28 @@ export function within(eta1: number, phi1: number, eta2: number, phi2: number, c
   return dEta2 + dPhi * dPhi < cone2;
 }
 
-/** Whether object `i` of `list` lies within `cone` of any kept object of `others`. */
-export function nearKept(list: ObjectList, i: number, others: ObjectList, keep: Uint8Array, cone: number): boolean {
+/**
+ * Indices into an analysis's table of squared Delta R cones (`coneTable`):
+ * cones travel as table indices, not as numbers, so that no floating-point
+ * value crosses a function call in the hot loop (V8 would box it).
+ */
+export const CONE_TAUS_NEAR_LEPTONS = 0;
+export const CONE_JETS_NEAR_LEPTONS = 1;
+export const CONE_JETS_NEAR_TAUS = 2;
+export const CONE_LEPTONS_NEAR_JETS = 3;
+export const CONE_ISOLATION = 4;
+
+/** Whether object `i` of `list` lies within the cone `cones[which]` (squared) of any kept object of `others`. */
+export function nearKept(list: ObjectList, i: number, others: ObjectList, keep: Uint8Array, cones: Float64Array, which: number): boolean {
   const eta = list.eta[i]!;
   const phi = list.phi[i]!;
-  const cone2 = cone * cone;
+  const cone2 = cones[which]!;
   const oEta = others.eta;
   const oPhi = others.phi;
   for (let j = 0; j < others.size; j++) {
     if (keep[j] === 1 && within(eta, phi, oEta[j]!, oPhi[j]!, cone2)) return true;
   }
   return false;
-}
-
-/** Sum of pT of the objects of `others` within `cone` of object `i` of `list` (skipping `i` itself when the lists are one). */
-export function coneSum(list: ObjectList, i: number, others: ObjectList, cone: number): number {
-  const eta = list.eta[i]!;
-  const phi = list.phi[i]!;
-  const cone2 = cone * cone;
-  const oEta = others.eta;
-  const oPhi = others.phi;
-  let sum = 0;
-  for (let j = 0; j < others.size; j++) {
-    if (others === list && j === i) continue;
-    if (within(eta, phi, oEta[j]!, oPhi[j]!, cone2)) sum += others.pt[j]!;
-  }
-  return sum;
 }
 
 /** Sets keep[i] = 1 for objects passing the thresholds, 0 otherwise; returns how many pass. */
@@ -65,12 +61,12 @@ export function markThresholds(list: ObjectList, cuts: KinematicThresholds, keep
   return n;
 }
 
-/** Clears the keep-flag of kept objects of `list` lying within `cone` of a kept object of `others`; returns how many of `list` stay. */
-export function removeNear(list: ObjectList, keep: Uint8Array, others: ObjectList, othersKeep: Uint8Array, cone: number): number {
+/** Clears the keep-flag of kept objects of `list` lying within cone `which` of a kept object of `others`; returns how many of `list` stay. */
+export function removeNear(list: ObjectList, keep: Uint8Array, others: ObjectList, othersKeep: Uint8Array, cones: Float64Array, which: number): number {
   let kept = 0;
   for (let i = 0; i < list.size; i++) {
     if (keep[i] !== 1) continue;
-    if (nearKept(list, i, others, othersKeep, cone)) keep[i] = 0;
+    if (nearKept(list, i, others, othersKeep, cones, which)) keep[i] = 0;
     else kept++;
   }
   return kept;

@@ -20,7 +20,16 @@
  * Everything lives in preallocated typed arrays that are refilled per event.
  */
 import type { ObjectList, RecoEvent } from '../detector/recoEvent.js';
-import { coneSum, markThresholds, removeNear } from './objectGeometry.js';
+import {
+  CONE_ISOLATION,
+  CONE_JETS_NEAR_LEPTONS,
+  CONE_JETS_NEAR_TAUS,
+  CONE_LEPTONS_NEAR_JETS,
+  CONE_TAUS_NEAR_LEPTONS,
+  markThresholds,
+  removeNear,
+  within,
+} from './objectGeometry.js';
 import { Flags, SelectedObjects } from './selectedObjects.js';
 
 export { SelectedObjects } from './selectedObjects.js';
@@ -93,9 +102,15 @@ export class AnalysisObjects {
   private readonly tauFlags = new Flags();
   private readonly jetFlags = new Flags();
   private readonly isolationOn: boolean;
+  /** Squared Delta R cones, indexed by the CONE_* constants of objectGeometry.ts. */
+  private readonly cones: Float64Array;
+  /** The event's four candidate lists, for the isolation sum. */
+  private readonly allLists: ObjectList[] = [];
 
   constructor(definitions: ObjectDefinitions) {
     this.definitions = definitions;
+    const or = definitions.overlapRemoval;
+    this.cones = Float64Array.from([or.tausNearLeptons, or.jetsNearLeptons, or.jetsNearTaus, or.leptonsNearJets, definitions.isolationCone], (c) => c * c);
     this.isolationOn = definitions.electrons.maxRelativeIsolation !== Infinity || definitions.muons.maxRelativeIsolation !== Infinity;
   }
 
@@ -115,18 +130,19 @@ export class AnalysisObjects {
     }
 
     const or = d.overlapRemoval;
+    const cones = this.cones;
     if (nTaus > 0 && nLight > 0 && or.tausNearLeptons > 0) {
-      removeNear(taus, kt, electrons, ke, or.tausNearLeptons);
-      nTaus = removeNear(taus, kt, muons, km, or.tausNearLeptons);
+      removeNear(taus, kt, electrons, ke, cones, CONE_TAUS_NEAR_LEPTONS);
+      nTaus = removeNear(taus, kt, muons, km, cones, CONE_TAUS_NEAR_LEPTONS);
     }
     if (nJets > 0 && nLight > 0 && or.jetsNearLeptons > 0) {
-      removeNear(jets, kj, electrons, ke, or.jetsNearLeptons);
-      nJets = removeNear(jets, kj, muons, km, or.jetsNearLeptons);
+      removeNear(jets, kj, electrons, ke, cones, CONE_JETS_NEAR_LEPTONS);
+      nJets = removeNear(jets, kj, muons, km, cones, CONE_JETS_NEAR_LEPTONS);
     }
-    if (nJets > 0 && nTaus > 0 && or.jetsNearTaus > 0) nJets = removeNear(jets, kj, taus, kt, or.jetsNearTaus);
+    if (nJets > 0 && nTaus > 0 && or.jetsNearTaus > 0) nJets = removeNear(jets, kj, taus, kt, cones, CONE_JETS_NEAR_TAUS);
     if (nLight > 0 && nJets > 0 && or.leptonsNearJets > 0) {
-      removeNear(electrons, ke, jets, kj, or.leptonsNearJets);
-      removeNear(muons, km, jets, kj, or.leptonsNearJets);
+      removeNear(electrons, ke, jets, kj, cones, CONE_LEPTONS_NEAR_JETS);
+      removeNear(muons, km, jets, kj, cones, CONE_LEPTONS_NEAR_JETS);
     }
 
     const leptons = this.leptons;
@@ -175,18 +191,34 @@ export class AnalysisObjects {
     this.leadingJetPt = leading;
   }
 
-  /** Clears the keep-flag of non-isolated leptons of `list`; returns how many stay. */
+  /**
+   * Clears the keep-flag of non-isolated leptons of `list`; returns how many
+   * stay. The cone sum runs over every candidate of the event (the lepton
+   * itself excluded) and stops as soon as it passes the limit.
+   */
   private applyIsolation(event: RecoEvent, list: ObjectList, keep: Uint8Array, cuts: LeptonDefinition): number {
+    const all = this.allLists;
+    all[0] = event.electrons;
+    all[1] = event.muons;
+    all[2] = event.taus;
+    all[3] = event.jets;
+    const cone2 = this.cones[CONE_ISOLATION]!;
+    const isolate = cuts.maxRelativeIsolation !== Infinity;
     let kept = 0;
     for (let i = 0; i < list.size; i++) {
       if (keep[i] !== 1) continue;
-      if (cuts.maxRelativeIsolation !== Infinity) {
-        const cone = this.definitions.isolationCone;
+      if (isolate) {
         const limit = cuts.maxRelativeIsolation * list.pt[i]!;
-        let sum = coneSum(list, i, event.electrons, cone);
-        if (sum <= limit) sum += coneSum(list, i, event.muons, cone);
-        if (sum <= limit) sum += coneSum(list, i, event.taus, cone);
-        if (sum <= limit) sum += coneSum(list, i, event.jets, cone);
+        const eta = list.eta[i]!;
+        const phi = list.phi[i]!;
+        let sum = 0;
+        for (let l = 0; l < 4 && sum <= limit; l++) {
+          const others = all[l]!;
+          for (let j = 0; j < others.size; j++) {
+            if (others === list && j === i) continue;
+            if (within(eta, phi, others.eta[j]!, others.phi[j]!, cone2)) sum += others.pt[j]!;
+          }
+        }
         if (sum > limit) {
           keep[i] = 0;
           continue;
