@@ -10,8 +10,10 @@
  *                          g_L = T3 - Q s_W^2,  g_R = T3_R - Q s_W^2 (T3_R = 0 in the Standard Model)
  *   W–quark vertex         -i (g / sqrt 2) V_ij gamma^mu P_L,  g = e / s_W
  *   scalar currents        -i e Q (k1 - k2)^mu and -i g_Z g_S (k1 - k2)^mu, g_S = T3 - Q s_W^2
- * (checks.md section 4; the fermion couplings as in M. E. Peskin and D. V. Schroeder,
- * "An Introduction to Quantum Field Theory", section 20.2 — section number from memory).
+ * (the fermion couplings as in the PDG Review, "Electroweak model and constraints on
+ * new physics", and M. E. Peskin and D. V. Schroeder, "An Introduction to Quantum
+ * Field Theory", section 20.2 — section number from memory; the scalar ones follow
+ * from the same covariant derivative acting on a scalar multiplet).
  *
  * Schemes:
  * - `alpha_mz` (default): alpha = alpha_MSbar(M_Z) = 1/127.930 and
@@ -71,7 +73,7 @@ export function couplingsFrom(scheme: ElectroweakScheme, alpha: number, sin2W: n
 
 /**
  * Z couplings (g_L, g_R) of a fermion in units of g_Z: g_L = T3_L - Q s_W^2, g_R = T3_R - Q s_W^2
- * (checks.md section 4; T3_R = 0 for Standard-Model fermions, T3_R = T3_L for vector-like ones).
+ * (PDG electroweak review; T3_R = 0 for Standard-Model fermions, T3_R = T3_L for vector-like ones).
  *
  * @example
  * fermionZCouplings(-0.5, 0, -1, 0.23129) // [-0.26871, 0.23129]
@@ -80,7 +82,7 @@ export function fermionZCouplings(t3Left: number, t3Right: number, charge: numbe
   return [t3Left - charge * sin2W, t3Right - charge * sin2W];
 }
 
-/** Z coupling g_S = T3 - Q s_W^2 of a complex scalar in units of g_Z (checks.md section 4). */
+/** Z coupling g_S = T3 - Q s_W^2 of a complex scalar in units of g_Z (from the covariant derivative; common practice). */
 export function scalarZCoupling(t3: number, charge: number, sin2W: number): number {
   return t3 - charge * sin2W;
 }

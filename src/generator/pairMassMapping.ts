@@ -4,7 +4,7 @@
  * grid starts close to the answer and event weights stay bounded.
  *
  * The density is a mixture (the multi-channel method of R. Kleiss and
- * R. Pittau, Comput. Phys. Commun. 83 (1994) 141): a power law p ~ 1/s for
+ * R. Pittau, Comput. Phys. Commun. 83 (1994) 141 — reference from memory): a power law p ~ 1/s for
  * the falling continuum over the whole range, plus one Breit–Wigner
  * p ~ 1/((s - M^2)^2 + M^2 Gamma^2) per massive s-channel vector whose pole lies
  * inside the range, restricted to |s - M^2| < WINDOW M Gamma. The unit

@@ -75,7 +75,7 @@ export class VegasGrid {
   /**
    * Moves the edges so that each bin holds an equal share of the smoothed and
    * damped importance r_i = ((1 - d_i/D) / ln(D/d_i))^alpha, d_i the sum of (f J)^2
-   * in bin i (Lepage 1978, section 3). `accumulated` holds bins values per dimension.
+   * in bin i (Lepage 1978). `accumulated` holds `bins` values per dimension.
    */
   refine(accumulated: Float64Array, alpha: number = DEFAULT_ALPHA): void {
     const n = this.bins;

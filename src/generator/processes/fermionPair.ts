@@ -18,7 +18,7 @@
  *   A = |L_L|^2 + |R_R|^2,  B = |R_L|^2 + |L_R|^2,  C = Re(L_L R_L*) + Re(L_R R_R*).
  *
  * Checks: photon only, m1 = m2 gives the shape 1 + cos^2 theta + (1 - beta^2) sin^2 theta and the
- * total beta (3 - beta^2)/2 x 4 pi alpha^2 Q^2 / (3 s N_c) (checks.md section 4); the pure axial
+ * total beta (3 - beta^2)/2 x 4 pi alpha^2 Q^2 / (3 s N_c) (tests/generator/processes.test.ts); the pure axial
  * current gives beta^3; the Z-pole forward-backward asymmetry is (3/4) A_e A_f (PDG electroweak review).
  */
 

@@ -5,8 +5,8 @@
  * in cos theta, once per s, so both beam orientations and all quark flavours
  * reuse one evaluation. Allocation-free after construction.
  *
- * Propagators: P_V(s) = 1 / (s - M_V^2 + i s Gamma_V / M_V) (running width,
- * checks.md section 4); the photon's is 1/s. The q^mu q^nu part of massive
+ * Propagators: P_V(s) = 1 / (s - M_V^2 + i s Gamma_V / M_V) (the running-width
+ * Breit–Wigner of W and Z line shapes, common practice); the photon's is 1/s. The q^mu q^nu part of massive
  * propagators drops out against the conserved massless quark current.
  */
 import { N_COLOURS } from '../../physics/constants.js';

@@ -14,7 +14,7 @@
  *   dsigma/dcos theta = betabar^3 s (|A_L|^2 + |A_R|^2) (1 - cos^2 theta) / (128 pi N_c).
  *
  * For the photon alone with N_c = 1 this is the sin^2 theta law with the total
- * pi alpha^2 Q^2 beta^3 / (3 s) = beta^3/4 x 4 pi alpha^2 / (3 s) (checks.md section 4).
+ * pi alpha^2 Q^2 beta^3 / (3 s) = beta^3/4 x 4 pi alpha^2 / (3 s) (tests/generator/processes.test.ts).
  */
 
 /**
