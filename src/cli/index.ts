@@ -17,6 +17,7 @@ const COMMANDS: readonly (() => Promise<CommandModule>)[] = [
   () => import('./commands/pdf.js'),
   () => import('./commands/xsec.js'),
   () => import('./commands/generate.js'),
+  () => import('./commands/limit.js'),
 ];
 
 /** Builds the program with every command registered (exported for tests and docs). */
