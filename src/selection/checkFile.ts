@@ -4,6 +4,7 @@
  * from the top-level keys:
  *
  *   *.model.yaml                      model
+ *   *.scan.yaml                       refused: not a kind this command reads
  *   a file inside a `detectors/` folder detector profile
  *   top-level key `regions`           analysis
  *   top-level key `collider_energy_tev` detector profile
@@ -11,6 +12,7 @@
  */
 import { basename, dirname } from 'node:path';
 import { parseDocument } from 'yaml';
+import { TamisError } from '../errors.js';
 import { readTextFile } from '../io/yamlFile.js';
 import { parseAnalysis } from './loader.js';
 
@@ -26,6 +28,9 @@ export interface CheckOutcome {
 /** The kind of a file, from its name, folder or top-level keys (see the module comment). */
 export function fileKindOf(file: string, text: string): CheckedKind {
   if (basename(file).endsWith('.model.yaml') || basename(file).endsWith('.model.yml')) return 'model';
+  if (/\.scan\.ya?ml$/.test(basename(file))) {
+    throw new TamisError('bad_input', 'tamis check reads analysis, detector-profile and model files, not scan files (*.scan.yaml)', { file });
+  }
   if (basename(dirname(file)) === 'detectors') return 'detector profile';
   let keys: string[] = [];
   try {
