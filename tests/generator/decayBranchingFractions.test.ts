@@ -17,22 +17,32 @@ import { CHARGED_SCALAR, TEST_TABLES, testParticles } from './decayTestUtils.js'
 const particles = testParticles();
 const N = 1_000_000;
 
-/** Decays `n` particles of id `id` at rest and counts the first-generation daughter sets. */
+/** A number naming a daughter list: first two ids and the count (unique within every table tested here). */
+function keyOf(first: number, second: number, count: number): number {
+  return count * 1e15 + first * 1e7 + second;
+}
+
+/** Decays `n` particles of id `id` at rest and counts the first-generation daughter sets, keyed as "id id ...". */
 function countChannels(decayer: Decayer, id: number, n: number, seed: number): Map<string, number> {
   const record = new EventRecord();
   const rng = RandomStream.forStream(seed);
   const m = particles.get(id).mass;
-  const counts = new Map<string, number>();
+  const byKey = new Map<number, number>();
+  const names = new Map<number, string>();
   for (let k = 0; k < n; k++) {
     record.clear();
     record.add(id, STATUS_FINAL, -1, -1, 0, 0, 0, m, m);
     decayer.decay(record, 0, rng);
-    let key = '';
-    for (let j = 1; j < record.size && record.mother1[j] === 0; j++) key += `${record.pdgId[j]} `;
-    key = key.trimEnd();
-    counts.set(key, (counts.get(key) ?? 0) + 1);
+    let count = 1;
+    while (count + 1 < record.size && record.mother1[count + 1] === 0) count++;
+    const key = keyOf(record.pdgId[1]!, record.pdgId[2]!, count);
+    const seen = byKey.get(key);
+    if (seen === undefined) {
+      byKey.set(key, 1);
+      names.set(key, Array.from(record.pdgId.subarray(1, 1 + count)).join(' '));
+    } else byKey.set(key, seen + 1);
   }
-  return counts;
+  return new Map([...byKey].map(([key, c]) => [names.get(key)!, c]));
 }
 
 /** Pulls (observed - expected) / sigma per channel and the chi-square p-value. */
@@ -59,16 +69,17 @@ describe('branching fractions observed in 1e6 decays', () => {
 
   it('W+ and W-: e nu 10.71%, mu nu 10.63%, tau nu 11.38% (PDG 2024), hadrons by |V_ij|^2', () => {
     const wOnly = createDecayer(particles, [], { stable: [15] });
-    for (const [id, seed] of [[24, 401], [-24, 402]] as const) {
-      const counts = countChannels(wOnly, id, N, seed);
+    // W+ with 1e6 decays; W- with 2e5, enough to see that antiparticles use the conjugate channels.
+    for (const [id, seed, n] of [[24, 401, N], [-24, 402, 200_000]] as const) {
+      const counts = countChannels(wOnly, id, n, seed);
       const sign = Math.sign(id);
-      const lepton = (l: number): number => (counts.get(`${-sign * l} ${sign * (l + 1)}`) ?? 0) / N;
-      // Leptonic fractions within 3 sigma of PDG 2024 (binomial sigma ~3.1e-4).
+      const lepton = (l: number): number => (counts.get(`${-sign * l} ${sign * (l + 1)}`) ?? 0) / n;
+      // Leptonic fractions within 3 sigma of PDG 2024 (binomial sigma ~3.1e-4 for 1e6 decays).
       for (const [l, br] of [[11, BR_W.enu], [13, BR_W.munu], [15, BR_W.taunu]] as const) {
-        expect(Math.abs(lepton(l) - br)).toBeLessThan(3 * Math.sqrt((br * (1 - br)) / N));
+        expect(Math.abs(lepton(l) - br)).toBeLessThan(3 * Math.sqrt((br * (1 - br)) / n));
       }
       const expected = new Map(wOnly.tables.find((t) => t.parent === 24)!.channels.map((c) => [c.daughters.map((d) => d * sign).join(' '), c.branching]));
-      const { maxPull, pValue } = compare(counts, expected, N);
+      const { maxPull, pValue } = compare(counts, expected, n);
       expect(maxPull).toBeLessThan(3);
       expect(pValue).toBeGreaterThan(1e-3);
     }
