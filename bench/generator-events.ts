@@ -61,7 +61,7 @@ function fillPair(record: EventRecord, idX: number, mX: number, idY: number, mY:
 export const benchmarks: Benchmark[] = [
   {
     name: 'events_with_decays_rate',
-    unit: 'events/s',
+    unit: 'events/cpu-s',
     measure: () => {
       const model = loadModel(MODEL_FILE);
       const generator = prepareEventGeneration(model, { energyTeV: 13, events: 1000 * EVENTS_PER_CHUNK, seed: 1 });
@@ -74,7 +74,7 @@ export const benchmarks: Benchmark[] = [
   },
   {
     name: 'decay_chain_rate',
-    unit: 'events/s',
+    unit: 'events/cpu-s',
     measure: () => {
       const model = loadModel(MODEL_FILE);
       const decayer = createDecayer(model.particles, model.decayTables);
