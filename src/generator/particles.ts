@@ -31,6 +31,8 @@ export interface DecayChannel {
 export interface DecayTable {
   parent: number;
   channels: readonly DecayChannel[];
+  /** Modes of the model file dropped because they are closed at this mass (closed_modes: rescale_open), as written. */
+  closedModes?: readonly string[];
 }
 
 /** Looks up particles by PDG id (either sign). */

@@ -207,3 +207,29 @@ describe('model files that do not load: one clear located error per kind', () =>
     }
   });
 });
+
+describe('closed decay modes in mass scans', () => {
+  it('closed_modes: rescale_open drops a closed mode and scales the open ones to sum to 1', () => {
+    const text = BASE.replace('    mass: 300\n', '    mass: 150\n').replace('  - particle: S+\n    modes:\n', '  - particle: S+\n    closed_modes: rescale_open\n    modes:\n');
+    const model = parseModel(text, 'scan-point.model.yaml');
+    const table = model.decayTables.find((t) => t.parent === 9000211)!;
+    expect(table.channels).toHaveLength(1);
+    expect(table.channels[0]!.daughters).toEqual([-15, 16]);
+    expect(table.channels[0]!.branching).toBe(1);
+    expect(table.closedModes).toEqual(['t bbar']);
+  });
+  it('keeps the tables unchanged when every mode is open', () => {
+    const text = BASE.replace('  - particle: S+\n    modes:\n', '  - particle: S+\n    closed_modes: rescale_open\n    modes:\n');
+    const table = parseModel(text, 'a.model.yaml').decayTables.find((t) => t.parent === 9000211)!;
+    expect(table.channels.map((c) => c.branching)).toEqual([0.6, 0.4]);
+    expect(table.closedModes).toBeUndefined();
+  });
+  it('suggests rescale_open when a mode is closed', () => {
+    expect(() => parseModel(BASE.replace('    mass: 300\n', '    mass: 150\n'), 'a.model.yaml')).toThrow(TamisError);
+    try {
+      parseModel(BASE.replace('    mass: 300\n', '    mass: 150\n'), 'a.model.yaml');
+    } catch (error) {
+      expect((error as TamisError).suggestion).toMatch(/closed_modes: rescale_open/);
+    }
+  });
+});

@@ -26,7 +26,9 @@ export function resolveDecays(file: ModelFile, newParticles: readonly NewParticl
     done.add(parent.id);
     const seen = new Set<string>();
     let sum = 0;
-    const channels: DecayChannel[] = entry.modes.map((mode, j) => {
+    let openSum = 0;
+    const closed: string[] = [];
+    const all: (DecayChannel & { open: boolean })[] = entry.modes.map((mode, j) => {
       const modeAt = [...at, 'modes', j];
       const daughters = mode.daughters.map((ref, k) => {
         const id = names.resolve(ref);
@@ -40,19 +42,29 @@ export function resolveDecays(file: ModelFile, newParticles: readonly NewParticl
       }
       if (!colourSinglet(daughters, table)) context.fail([...modeAt, 'daughters'], 'colour is not conserved: a colour-singlet parent decays to two singlets, a quark and an antiquark, or two gluons');
       const daughterMass = daughters.reduce((m, id) => m + table.get(id).mass, 0);
-      if (parent.mass < daughterMass) {
-        context.fail([...modeAt, 'daughters'], `${parent.name} (${parent.mass} GeV) is lighter than its daughters (${daughterMass.toPrecision(6)} GeV): the mode is closed`);
+      const open = parent.mass >= daughterMass;
+      if (!open) {
+        if (entry.closed_modes === 'error') {
+          context.fail([...modeAt, 'daughters'], `${parent.name} (${parent.mass} GeV) is lighter than its daughters (${daughterMass.toPrecision(6)} GeV): the mode is closed`, 'set closed_modes: rescale_open on this table to drop closed modes in a mass scan');
+        }
+        closed.push(mode.daughters.join(' '));
       }
       const key = [...daughters].sort((a, b) => a - b).join(',');
       if (seen.has(key)) context.fail([...modeAt, 'daughters'], 'this mode is listed twice');
       seen.add(key);
       sum += mode.branching;
-      return { daughters, branching: mode.branching };
+      if (open) openSum += mode.branching;
+      return { daughters, branching: mode.branching, open };
     });
     if (Math.abs(sum - 1) > BRANCHING_SUM_TOLERANCE) {
       context.fail([...at, 'modes'], `branching fractions of ${parent.name} sum to ${sum.toPrecision(10)}, not 1 (tolerance ${BRANCHING_SUM_TOLERANCE})`);
     }
-    return { parent: parent.id, channels };
+    if (closed.length > 0 && !(openSum > 0)) {
+      context.fail([...at, 'modes'], `every mode of ${parent.name} (${parent.mass} GeV) with a non-zero branching fraction is closed`);
+    }
+    // Closed modes are dropped and the open ones scaled up to sum to 1 (closed_modes: rescale_open).
+    const channels: DecayChannel[] = all.filter((c) => c.open).map((c) => ({ daughters: c.daughters, branching: closed.length > 0 ? c.branching / openSum : c.branching }));
+    return closed.length > 0 ? { parent: parent.id, channels, closedModes: closed } : { parent: parent.id, channels };
   });
 }
 

@@ -137,6 +137,10 @@ const decayMode = z.strictObject({
 const decayTable = z.strictObject({
   particle: particleName.describe('The decaying new particle; its antiparticle decays to the conjugate modes.'),
   modes: z.array(decayMode).min(1),
+  closed_modes: z
+    .enum(['error', 'rescale_open'])
+    .default('error')
+    .describe('A mode lighter than its daughters: error (default) or rescale_open (drop it and scale the open modes up so they sum to 1; for mass scans that cross a threshold).'),
 });
 
 /** The model file as written. */
