@@ -20,9 +20,9 @@
  * particle itself, an event process id not declared in <init>, event groups,
  * and files cut short (an open block or no closing tag).
  */
-import { TamisError } from '../../errors.js';
 import { EventRecord } from '../eventRecord.js';
-import { LHE_MAX_PARTICLES, LHE_STATUS_CODES, parseLheInteger, parseLheReal, splitFields, type LheInit } from './lheFormat.js';
+import type { LheInit } from './lheFormat.js';
+import { INIT_COLUMNS, EVENT_COLUMNS, LheFields, looksNumeric, readBeamLine, readEventLine, readParticleLine, readProcessLine, tagOf } from './lheLines.js';
 
 const BEFORE_ROOT = 0;
 const TOP = 1;
@@ -37,11 +37,6 @@ const EVENT_TRAILER = 9;
 const AFTER_ROOT = 10;
 const STOPPED = 11;
 
-const PARTICLE_COLUMNS = 'IDUP ISTUP MOTHUP1 MOTHUP2 ICOLUP1 ICOLUP2 PUP1 PUP2 PUP3 PUP4 PUP5 VTIMUP SPINUP';
-const INIT_COLUMNS = 'IDBMUP1 IDBMUP2 EBMUP1 EBMUP2 PDFGUP1 PDFGUP2 PDFSUP1 PDFSUP2 IDWTUP NPRUP';
-const PROCESS_COLUMNS = 'XSECUP XERRUP XMAXUP LPRUP';
-const EVENT_COLUMNS = 'NUP IDPRUP XWGTUP SCALUP AQEDUP AQCDUP';
-
 /** Called for every complete event; the record is reused, copy it to keep it. */
 export type LheEventHandler = (record: EventRecord, index: number) => void;
 
@@ -51,33 +46,12 @@ export interface LheReadResult {
   events: number;
 }
 
-/** Name of the tag a trimmed line starts with ('' if none); closing tags keep their '/'. */
-function tagOf(line: string): string {
-  if (line.charCodeAt(0) !== 60) return '';
-  let i = 1;
-  if (line.charCodeAt(1) === 47) i = 2;
-  let j = i;
-  while (j < line.length) {
-    const c = line.charCodeAt(j);
-    if (c === 32 || c === 9 || c === 62 || c === 47) break;
-    j++;
-  }
-  return line.slice(0, j);
-}
-
-/** True if the trimmed line starts like a number (digit, sign or point). */
-function looksNumeric(line: string): boolean {
-  const c = line.charCodeAt(0);
-  return (c >= 48 && c <= 57) || c === 43 || c === 45 || c === 46;
-}
-
 export class LheParser {
   readonly file: string;
   private readonly onEvent: LheEventHandler;
   private readonly maxEvents: number;
   private readonly record = new EventRecord(64);
-  private readonly starts = new Int32Array(16);
-  private readonly ends = new Int32Array(16);
+  private readonly fields: LheFields;
   private state = BEFORE_ROOT;
   private returnState = BEFORE_ROOT;
   private skipUntil = '';
@@ -93,6 +67,7 @@ export class LheParser {
   /** `file` names the input in error messages; parsing stops after `maxEvents` events. */
   constructor(file: string, onEvent: LheEventHandler, maxEvents = Infinity) {
     this.file = file;
+    this.fields = new LheFields(file);
     this.onEvent = onEvent;
     this.maxEvents = maxEvents;
   }
@@ -103,12 +78,13 @@ export class LheParser {
   }
 
   private fail(message: string, line = this.lineNumber): never {
-    throw new TamisError('bad_file', message, { file: this.file, line });
+    return this.fields.fail(message, line);
   }
 
   /** Feeds the next line (without its line break). */
   line(raw: string): void {
     this.lineNumber++;
+    this.fields.lineNumber = this.lineNumber;
     if (this.state === STOPPED) return;
     const line = raw.trim();
     switch (this.state) {
@@ -185,25 +161,6 @@ export class LheParser {
     }
   }
 
-  private fields(line: string, expected: number, what: string, columns: string): void {
-    const n = splitFields(line, this.starts, this.ends, expected);
-    if (n !== expected) {
-      this.fail(`${what}: expected ${expected} columns (${columns}), got ${n > expected ? 'more' : n}`);
-    }
-  }
-
-  private real(line: string, k: number, what: string, name: string): number {
-    const v = parseLheReal(line, this.starts[k]!, this.ends[k]!);
-    if (Number.isNaN(v)) this.fail(`${what}: ${name} is not a finite number: "${line.slice(this.starts[k]!, this.ends[k]!)}"`);
-    return v;
-  }
-
-  private integer(line: string, k: number, what: string, name: string): number {
-    const v = parseLheInteger(line, this.starts[k]!, this.ends[k]!);
-    if (Number.isNaN(v)) this.fail(`${what}: ${name} is not an integer: "${line.slice(this.starts[k]!, this.ends[k]!)}"`);
-    return v;
-  }
-
   private initLine(line: string): void {
     if (line === '' || line.startsWith('#')) return;
     const tag = tagOf(line);
@@ -218,35 +175,15 @@ export class LheParser {
     if (tag === '<event' || tag === '</LesHouchesEvents' || tag === '<init') this.fail(`<init> block opened at line ${this.blockLine} is not closed`);
     if (this.state === INIT_FIRST) {
       if (tag !== '') this.fail(`<init> block: expected the beam line (${INIT_COLUMNS}), found a tag`);
-      this.fields(line, 10, '<init> beam line', INIT_COLUMNS);
-      const what = '<init> beam line';
-      const names = INIT_COLUMNS.split(' ');
-      const ints = [0, 1, 4, 5, 6, 7, 8, 9].map((k) => this.integer(line, k, what, names[k]!));
-      const reals = [2, 3].map((k) => this.real(line, k, what, names[k]!));
-      const nprup = ints[7]!;
-      if (nprup < 1 || nprup > 10_000) this.fail(`<init> beam line: NPRUP must be between 1 and 10000, got ${nprup}`);
-      this.init = {
-        beamIds: [ints[0]!, ints[1]!],
-        beamEnergies: [reals[0]!, reals[1]!],
-        pdfGroups: [ints[2]!, ints[3]!],
-        pdfSets: [ints[4]!, ints[5]!],
-        weighting: ints[6]!,
-        processes: [],
-      };
-      this.remaining = nprup;
+      const { init, processCount } = readBeamLine(this.fields, line);
+      this.init = init;
+      this.remaining = processCount;
       this.state = INIT_PROCESSES;
       return;
     }
     if (this.state === INIT_PROCESSES) {
       if (tag !== '') this.fail(`<init> block: ${this.remaining} more process line(s) expected (NPRUP), found a tag`);
-      const what = '<init> process line';
-      this.fields(line, 4, what, PROCESS_COLUMNS);
-      const process = {
-        crossSectionPb: this.real(line, 0, what, 'XSECUP'),
-        errorPb: this.real(line, 1, what, 'XERRUP'),
-        maxWeight: this.real(line, 2, what, 'XMAXUP'),
-        processId: this.integer(line, 3, what, 'LPRUP'),
-      };
+      const process = readProcessLine(this.fields, line);
       this.init!.processes.push(process);
       this.processIds.add(process.processId);
       if (--this.remaining === 0) this.state = INIT_EXTRA;
@@ -269,19 +206,7 @@ export class LheParser {
     if (this.state === EVENT_HEADER) {
       if (tag === '</event') this.fail('empty event: no NUP line');
       if (tag !== '') this.fail(`event: expected the event line (${EVENT_COLUMNS}), found ${tag}>`);
-      const what = 'event line';
-      this.fields(line, 6, what, EVENT_COLUMNS);
-      const nup = this.integer(line, 0, what, 'NUP');
-      if (nup < 1 || nup > LHE_MAX_PARTICLES) this.fail(`event line: NUP must be between 1 and ${LHE_MAX_PARTICLES}, got ${nup}`);
-      const processId = this.integer(line, 1, what, 'IDPRUP');
-      if (!this.processIds.has(processId)) this.fail(`event line: process id IDPRUP = ${processId} is not among the <init> processes (${[...this.processIds].join(', ')})`);
-      const r = this.record;
-      r.clear();
-      r.processId = processId;
-      r.weight = this.real(line, 2, what, 'XWGTUP');
-      r.scale = this.real(line, 3, what, 'SCALUP');
-      r.alphaQed = this.real(line, 4, what, 'AQEDUP');
-      r.alphaQcd = this.real(line, 5, what, 'AQCDUP');
+      const nup = readEventLine(this.fields, line, this.record, this.processIds);
       this.particleCount = nup;
       this.remaining = nup;
       this.trailerTags = false;
@@ -290,7 +215,7 @@ export class LheParser {
     }
     if (this.state === EVENT_PARTICLES) {
       if (tag !== '') this.fail(`wrong particle count: NUP = ${this.particleCount} but the event has ${this.particleCount - this.remaining} particle line(s)`);
-      this.particle(line);
+      readParticleLine(this.fields, line, this.record, this.particleCount - this.remaining + 1, this.particleCount);
       if (--this.remaining === 0) this.state = EVENT_TRAILER;
       return;
     }
@@ -305,43 +230,9 @@ export class LheParser {
       this.trailerTags = true;
       return;
     }
-    if (!this.trailerTags && looksNumeric(line) && splitFields(line, this.starts, this.ends, 13) === 13) {
+    if (!this.trailerTags && looksNumeric(line) && this.fields.count(line, 13) === 13) {
       this.fail(`wrong particle count: NUP = ${this.particleCount} but more particle lines follow`);
     }
-  }
-
-  private particle(line: string): void {
-    const what = `particle ${this.particleCount - this.remaining + 1}`;
-    this.fields(line, 13, what, PARTICLE_COLUMNS);
-    const id = this.integer(line, 0, what, 'IDUP');
-    const status = this.integer(line, 1, what, 'ISTUP');
-    const m1 = this.integer(line, 2, what, 'MOTHUP1');
-    const m2 = this.integer(line, 3, what, 'MOTHUP2');
-    const c1 = this.integer(line, 4, what, 'ICOLUP1');
-    const c2 = this.integer(line, 5, what, 'ICOLUP2');
-    const px = this.real(line, 6, what, 'PUP1');
-    const py = this.real(line, 7, what, 'PUP2');
-    const pz = this.real(line, 8, what, 'PUP3');
-    const e = this.real(line, 9, what, 'PUP4');
-    const m = this.real(line, 10, what, 'PUP5');
-    this.real(line, 11, what, 'VTIMUP');
-    const spin = this.real(line, 12, what, 'SPINUP');
-    if (id === 0) this.fail(`${what}: IDUP must not be 0`);
-    if (!LHE_STATUS_CODES.includes(status)) this.fail(`${what}: ISTUP = ${status} is not a status code of the standard (${LHE_STATUS_CODES.join(', ')})`);
-    const self = this.particleCount - this.remaining + 1;
-    this.checkMother(what, 'MOTHUP1', m1, self);
-    this.checkMother(what, 'MOTHUP2', m2, self);
-    if (c1 < 0 || c2 < 0) this.fail(`${what}: colour tags must be >= 0, got ${c1} ${c2}`);
-    const r = this.record;
-    const i = r.add(id, status, m1 - 1, m2 - 1, px, py, pz, e, m);
-    r.colour1[i] = c1;
-    r.colour2[i] = c2;
-    r.spin[i] = spin;
-  }
-
-  private checkMother(what: string, name: string, mother: number, self: number): void {
-    if (mother < 0 || mother > this.particleCount) this.fail(`${what}: ${name} = ${mother} points outside the event (0 to ${this.particleCount})`);
-    if (mother === self) this.fail(`${what}: ${name} points to the particle itself`);
   }
 
   /** Checks the end of the input and returns the result. */
