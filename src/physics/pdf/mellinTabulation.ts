@@ -67,10 +67,19 @@ export function tabulateByMellinInversion(
       }
     }
     const factors = inversionFactors(contour, members.map((ix) => xs[ix]!));
+    const blockLength = points * 2;
     for (let column = 0; column < COLUMN_COUNT; column++) {
       const out = columns[column]!;
       for (let iq = 0; iq < nq; iq++) {
-        const base = (column * nq + iq) * points * 2;
+        const base = (column * nq + iq) * blockLength;
+        // A heavy quark below its threshold has zero moments; a quark equal to its antiquark
+        // (s = sbar in the toy input) has the same moments as an earlier column: reuse.
+        if (isZeroBlock(moments, base, blockLength)) continue;
+        const twin = earlierTwin(moments, column, iq, nq, blockLength);
+        if (twin >= 0) {
+          for (const ix of members) out[iq * nx + ix] = columns[twin]![iq * nx + ix]!;
+          continue;
+        }
         for (let m = 0; m < members.length; m++) {
           const factorBase = m * points * 2;
           let sum = 0;
@@ -83,4 +92,21 @@ export function tabulateByMellinInversion(
     }
   }
   return columns;
+}
+
+function isZeroBlock(moments: Float64Array, base: number, length: number): boolean {
+  for (let k = 0; k < length; k++) if (moments[base + k] !== 0) return false;
+  return true;
+}
+
+/** An earlier column whose moments at target iq are identical to those of `column`, or -1. */
+function earlierTwin(moments: Float64Array, column: number, iq: number, nq: number, length: number): number {
+  const base = (column * nq + iq) * length;
+  for (let other = 0; other < column; other++) {
+    const otherBase = (other * nq + iq) * length;
+    let same = true;
+    for (let k = 0; k < length && same; k++) same = moments[base + k] === moments[otherBase + k];
+    if (same) return other;
+  }
+  return -1;
 }
