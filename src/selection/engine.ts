@@ -2,12 +2,14 @@
  * The selection engine: streams reconstructed events once through every
  * analysis given (typically all analyses of one collider energy and one
  * detector profile). Analyses with identical object definitions share the
- * object building and the variable cache of each event.
+ * object building and the variable cache of each event; analyses with the
+ * same isolation cone share the lepton isolation sums.
  */
 import type { RecoEvent } from '../detector/recoEvent.js';
 import { TamisError } from '../errors.js';
 import type { Analysis } from './analysis.js';
 import { EventVariables } from './eventVariables.js';
+import { IsolationSums } from './isolationSums.js';
 import { AnalysisObjects } from './objects.js';
 import { weightedCount, type AnalysisResult, type CutBlame, type RegionOverlap, type SelectionResults } from './results.js';
 import { AnalysisRunner } from './runner.js';
@@ -44,16 +46,28 @@ export function createSelection(analyses: readonly Analysis[], options: Selectio
     throw new TamisError('bad_input', `overlapExamples must be a whole number in [0, 1000], got ${overlapExamples}`);
   }
   const groups = new Map<string, EventVariables>();
+  // Isolation sums depend only on the cone: computed once per event per cone in use.
+  const isolation = new Map<number, IsolationSums>();
   const runners = analyses.map((analysis) => {
     const key = JSON.stringify(analysis.objects, (_k, v: unknown) => (v === Infinity ? 'Infinity' : v));
     let reader = groups.get(key);
     if (reader === undefined) {
-      reader = new EventVariables(new AnalysisObjects(analysis.objects));
+      const cone = analysis.objects.isolationCone;
+      let sums = isolation.get(cone);
+      if (sums === undefined) {
+        sums = new IsolationSums(cone);
+        isolation.set(cone, sums);
+      }
+      reader = new EventVariables(new AnalysisObjects(analysis.objects, sums));
       groups.set(key, reader);
     }
     return new AnalysisRunner(analysis, reader, { blame, overlapExamples });
   });
   const readers = [...groups.values()];
+  // Only cones that some analysis isolates with need their sums.
+  const isolationInUse = [...isolation.values()].filter((sums) =>
+    analyses.some((a) => a.objects.isolationCone * a.objects.isolationCone === sums.cone2 && (a.objects.electrons.maxRelativeIsolation !== Infinity || a.objects.muons.maxRelativeIsolation !== Infinity)),
+  );
   let processed = 0;
   return {
     analyses,
@@ -61,6 +75,7 @@ export function createSelection(analyses: readonly Analysis[], options: Selectio
       return processed;
     },
     process(event: RecoEvent, eventIndex?: number): void {
+      for (let c = 0; c < isolationInUse.length; c++) isolationInUse[c]!.compute(event);
       for (let g = 0; g < readers.length; g++) {
         const reader = readers[g]!;
         reader.objects.build(event);

@@ -33,7 +33,6 @@ export const CONE_TAUS_NEAR_LEPTONS = 0;
 export const CONE_JETS_NEAR_LEPTONS = 1;
 export const CONE_JETS_NEAR_TAUS = 2;
 export const CONE_LEPTONS_NEAR_JETS = 3;
-export const CONE_ISOLATION = 4;
 
 /** Whether object `i` of `list` lies within the cone `cones[which]` (squared) of any kept object of `others`. */
 export function nearKept(list: ObjectList, i: number, others: ObjectList, keep: Uint8Array, cones: Float64Array, which: number): boolean {

@@ -21,15 +21,14 @@
  */
 import type { ObjectList, RecoEvent } from '../detector/recoEvent.js';
 import {
-  CONE_ISOLATION,
   CONE_JETS_NEAR_LEPTONS,
   CONE_JETS_NEAR_TAUS,
   CONE_LEPTONS_NEAR_JETS,
   CONE_TAUS_NEAR_LEPTONS,
   markThresholds,
   removeNear,
-  within,
 } from './objectGeometry.js';
+import { IsolationSums } from './isolationSums.js';
 import { Flags, SelectedObjects } from './selectedObjects.js';
 
 export { SelectedObjects } from './selectedObjects.js';
@@ -102,16 +101,24 @@ export class AnalysisObjects {
   private readonly tauFlags = new Flags();
   private readonly jetFlags = new Flags();
   private readonly isolationOn: boolean;
-  /** Squared Delta R cones, indexed by the CONE_* constants of objectGeometry.ts. */
+  /** Squared Delta R cones of overlap removal, indexed by the CONE_* constants of objectGeometry.ts. */
   private readonly cones: Float64Array;
-  /** The event's four candidate lists, for the isolation sum. */
-  private readonly allLists: ObjectList[] = [];
+  /** Isolation cone sums of the event's leptons; shared with other analyses when `ownsIsolation` is false. */
+  private readonly isolation: IsolationSums;
+  private readonly ownsIsolation: boolean;
 
-  constructor(definitions: ObjectDefinitions) {
+  /**
+   * @param sharedIsolation isolation sums for `definitions.isolationCone` that the
+   *   caller fills once per event before `build` (the selection engine shares
+   *   them between analyses); without it, `build` fills its own.
+   */
+  constructor(definitions: ObjectDefinitions, sharedIsolation?: IsolationSums) {
     this.definitions = definitions;
     const or = definitions.overlapRemoval;
-    this.cones = Float64Array.from([or.tausNearLeptons, or.jetsNearLeptons, or.jetsNearTaus, or.leptonsNearJets, definitions.isolationCone], (c) => c * c);
+    this.cones = Float64Array.from([or.tausNearLeptons, or.jetsNearLeptons, or.jetsNearTaus, or.leptonsNearJets], (c) => c * c);
     this.isolationOn = definitions.electrons.maxRelativeIsolation !== Infinity || definitions.muons.maxRelativeIsolation !== Infinity;
+    this.ownsIsolation = sharedIsolation === undefined;
+    this.isolation = sharedIsolation ?? new IsolationSums(definitions.isolationCone);
   }
 
   /** Selects this analysis's objects from a reconstructed event. */
@@ -126,7 +133,8 @@ export class AnalysisObjects {
     let nTaus = markThresholds(taus, d.taus, kt);
     let nJets = markThresholds(jets, d.jets, kj);
     if (this.isolationOn && nLight > 0) {
-      nLight = this.applyIsolation(event, electrons, ke, d.electrons) + this.applyIsolation(event, muons, km, d.muons);
+      if (this.ownsIsolation) this.isolation.compute(event);
+      nLight = applyIsolation(electrons, ke, this.isolation.electrons, d.electrons) + applyIsolation(muons, km, this.isolation.muons, d.muons);
     }
 
     const or = d.overlapRemoval;
@@ -191,41 +199,16 @@ export class AnalysisObjects {
     this.leadingJetPt = leading;
   }
 
-  /**
-   * Clears the keep-flag of non-isolated leptons of `list`; returns how many
-   * stay. The cone sum runs over every candidate of the event (the lepton
-   * itself excluded) and stops as soon as it passes the limit.
-   */
-  private applyIsolation(event: RecoEvent, list: ObjectList, keep: Uint8Array, cuts: LeptonDefinition): number {
-    const all = this.allLists;
-    all[0] = event.electrons;
-    all[1] = event.muons;
-    all[2] = event.taus;
-    all[3] = event.jets;
-    const cone2 = this.cones[CONE_ISOLATION]!;
-    const isolate = cuts.maxRelativeIsolation !== Infinity;
-    let kept = 0;
-    for (let i = 0; i < list.size; i++) {
-      if (keep[i] !== 1) continue;
-      if (isolate) {
-        const limit = cuts.maxRelativeIsolation * list.pt[i]!;
-        const eta = list.eta[i]!;
-        const phi = list.phi[i]!;
-        let sum = 0;
-        for (let l = 0; l < 4 && sum <= limit; l++) {
-          const others = all[l]!;
-          for (let j = 0; j < others.size; j++) {
-            if (others === list && j === i) continue;
-            if (within(eta, phi, others.eta[j]!, others.phi[j]!, cone2)) sum += others.pt[j]!;
-          }
-        }
-        if (sum > limit) {
-          keep[i] = 0;
-          continue;
-        }
-      }
-      kept++;
-    }
-    return kept;
+}
+
+/** Clears the keep-flag of leptons whose cone sum exceeds max_relative_isolation x pT; returns how many stay. */
+function applyIsolation(list: ObjectList, keep: Uint8Array, sums: Float64Array, cuts: LeptonDefinition): number {
+  const isolate = cuts.maxRelativeIsolation !== Infinity;
+  let kept = 0;
+  for (let i = 0; i < list.size; i++) {
+    if (keep[i] !== 1) continue;
+    if (isolate && sums[i]! > cuts.maxRelativeIsolation * list.pt[i]!) keep[i] = 0;
+    else kept++;
   }
+  return kept;
 }

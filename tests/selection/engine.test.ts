@@ -142,3 +142,20 @@ describe('selection engine: statistics of unit-weight samples', () => {
     expect(b!.regions.map((r) => r.weight)).toEqual([0, 0, 0]);
   });
 });
+
+describe('selection engine: isolation sums shared between analyses', () => {
+  it('counts as if each analysis isolated its leptons on its own', () => {
+    // Two analyses, same 0.3 cone, different isolation limits: the looser keeps the lepton with I = 0.5.
+    const text = (id: string, limit: number) =>
+      ANALYSIS.replace('id: engine-test', `id: ${id}`).replace('steps:', `objects:\n  muons: {max_relative_isolation: ${limit}}\nsteps:`);
+    const tight = parseAnalysis(text('tight', 0.15), 't.yaml', { checkFiles: false });
+    const loose = parseAnalysis(text('loose', 0.6), 'l.yaml', { checkFiles: false });
+    const selection = createSelection([tight, loose]);
+    // The second muon has a 15 GeV jet 0.2 away: I = 15 / 30 = 0.5.
+    const spec: EventSpec = { muons: [[40, 0, 0, 1], [30, 0.5, Math.PI, -1]], jets: [[100, -1.5, Math.PI / 2, 0], [15, 0.7, Math.PI, 0]], met: [30, 1] };
+    for (let i = 0; i < 3; i++) selection.process(makeEvent(spec));
+    const [t, l] = selection.results().analyses;
+    expect(t!.steps[0]!.events).toBe(0);
+    expect(l!.steps[0]!.events).toBe(3);
+  });
+});
