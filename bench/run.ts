@@ -13,6 +13,7 @@ const SUITES: readonly (() => Promise<{ benchmarks: Benchmark[] }>)[] = [
   () => import('./selection.js'),
   () => import('./generator-xsec.js'),
   () => import('./generator-events.js'),
+  () => import('./stats.js'),
 ];
 
 function formatValue(value: number): string {

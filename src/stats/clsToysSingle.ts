@@ -74,13 +74,16 @@ class SingleRegionToys {
     const background = this.termsBackground.subarray(0, size);
     const signal = this.termsSignal.subarray(0, size);
     const target = this.evaluate(n, 0, background).logValue + logAlpha;
+    let lastValue = 0;
     const evaluate = (s: number, out: ValueAndSlope): void => {
       const point = this.evaluate(n, s, signal);
       out.value = point.logValue - target;
       out.slope = point.logSlope;
+      lastValue = out.value;
     };
     const limit = findRootNewtonFromGuess(evaluate, guess, -logAlpha, { absolute: 1e-10, relative: 1e-7 });
-    const cls = Math.exp(this.evaluate(n, limit, signal).logValue - target + logAlpha);
+    // The terms of the last evaluation sit within the root tolerance of the limit: good enough for its error.
+    const cls = Math.exp(lastValue + logAlpha);
     return { limit, error: ratioStandardError(signal, background, cls) };
   }
 

@@ -6,7 +6,7 @@
  * a finite number inside the bracket.
  */
 import { TamisError } from '../errors.js';
-import { bracketNear, checkValue, expandBracketUpward, type Bracket, type RootTolerance, type ValueAndSlope } from './rootFinding.js';
+import { checkValue, type Bracket, type RootTolerance, type ValueAndSlope } from './rootFinding.js';
 
 const DEFAULT_ABSOLUTE = 1e-12;
 const DEFAULT_RELATIVE = 1e-10;
@@ -79,9 +79,11 @@ export function findRootNewtonSafe(
 
 /**
  * A root of a decreasing-to-negative function with f(0) = `fAtZero` > 0,
- * starting from a guess: one Newton step from the guess usually brackets the
- * root, then safeguarded Newton finishes. Falls back to outward expansion
- * when the first step does not bracket.
+ * starting from a guess: Newton steps from the guess, keeping the tightest
+ * bracket seen so far; a step that leaves the bracket, or fails to halve the
+ * previous one, becomes a bisection, and without an upper end yet the search
+ * doubles outwards. Converges quadratically near the root whichever side the
+ * guess is on.
  *
  * @example
  * const line = (x: number, out: ValueAndSlope) => { out.value = 3 - x; out.slope = -1; };
@@ -93,31 +95,33 @@ export function findRootNewtonFromGuess(
   fAtZero: number,
   tolerance: RootTolerance = {},
 ): number {
-  const atGuess: ValueAndSlope = { value: 0, slope: 0 };
-  const scratch: ValueAndSlope = { value: 0, slope: 0 };
-  const valueAt = (x: number): number => {
-    evaluate(x, scratch);
-    return scratch.value;
-  };
-  if (!(guess > 0) || !Number.isFinite(guess)) {
-    return findRootNewtonSafe(evaluate, expandBracketUpward(valueAt, 0, 1, 2, fAtZero), tolerance);
+  const absolute = tolerance.absolute ?? DEFAULT_ABSOLUTE;
+  const relative = tolerance.relative ?? DEFAULT_RELATIVE;
+  const maxIterations = tolerance.maxIterations ?? DEFAULT_ITERATIONS;
+  if (!(fAtZero > 0)) return 0;
+  let low = 0;
+  let high = Number.POSITIVE_INFINITY;
+  let x = guess > 0 && Number.isFinite(guess) ? guess : 1;
+  let stepBefore = Number.POSITIVE_INFINITY;
+  const point: ValueAndSlope = { value: 0, slope: 0 };
+  for (let iteration = 0; iteration < maxIterations; iteration++) {
+    evaluate(x, point);
+    const f = checkValue(point.value, x);
+    if (f === 0) return x;
+    if (f > 0) low = x;
+    else high = x;
+    const df = point.slope;
+    const newton = Number.isFinite(f) && Number.isFinite(df) && df < 0 ? x - f / df : Number.NaN;
+    const insideBracket = newton > low && newton < high;
+    let next: number;
+    if (insideBracket && Math.abs(newton - x) <= 0.5 * stepBefore) next = newton;
+    else if (high < Number.POSITIVE_INFINITY) next = 0.5 * (low + high);
+    else if (insideBracket) next = newton;
+    else next = Math.max(2 * x, x + 1);
+    stepBefore = Math.abs(next - x);
+    x = next;
+    if (stepBefore <= absolute + relative * Math.abs(x)) return x;
+    if (high - low <= absolute + relative * Math.abs(x)) return 0.5 * (low + high);
   }
-  evaluate(guess, atGuess);
-  const f0 = checkValue(atGuess.value, guess);
-  if (f0 === 0) return guess;
-  const newton = Number.isFinite(atGuess.slope) && atGuess.slope < 0 ? guess - f0 / atGuess.slope : Number.NaN;
-  let bracket: Bracket;
-  if (f0 > 0) {
-    const first = newton > guess ? newton : 2 * guess;
-    bracket = expandBracketUpward(valueAt, guess, first, 2, f0);
-  } else if (newton > 0) {
-    const fNewton = valueAt(newton);
-    bracket = fNewton > 0
-      ? { low: newton, high: guess, fLow: fNewton, fHigh: f0 }
-      : bracketNear(valueAt, newton / 2, fAtZero, 2);
-  } else {
-    bracket = { low: 0, high: guess, fLow: fAtZero, fHigh: f0 };
-  }
-  const startAtGuess = bracket.low === guess || bracket.high === guess;
-  return findRootNewtonSafe(evaluate, bracket, tolerance, startAtGuess ? guess : undefined, startAtGuess ? atGuess : undefined);
+  return x;
 }
