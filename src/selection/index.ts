@@ -6,6 +6,7 @@ export { OBJECT_DEFAULTS, resolveObjects } from './objectDefaults.js';
 export { AnalysisObjects, SelectedObjects, type ObjectDefinitions, type KinematicThresholds, type LeptonDefinition, type OverlapRemoval } from './objects.js';
 export { VARIABLES, variableNames, variableSlot, type VariableDefinition } from './variables.js';
 export { EventVariables, variablesOfEvent } from './eventVariables.js';
+export { IsolationSums } from './isolationSums.js';
 export { parseExpression } from './expression/parser.js';
 export { printExpression, variablesOf, type CutExpression } from './expression/ast.js';
 export { compileExpression, type CompiledCut, type VariableReader } from './expression/compile.js';
