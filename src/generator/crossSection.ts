@@ -14,7 +14,7 @@
 import { TamisError } from '../errors.js';
 import type { PartonDensity } from '../physics/partonDensity.js';
 import { lesHouchesToyDensities } from '../physics/pdf/index.js';
-import { integrateAtScale, integrateChannel, type ChannelIntegrationOptions } from './channelIntegration.js';
+import { integrateAtScale, integrateChannel, type ChannelIntegration, type ChannelIntegrationOptions } from './channelIntegration.js';
 import type { Model, ProductionChannel } from './model/types.js';
 
 /** Collider energies tamis is commonly run at (TeV); any other positive value works too. */
@@ -102,15 +102,40 @@ export function checkGeneratorOptions(energyTeV: number, seed: number, scaleFact
  * crossSection(loadModel('data-demo/benchmark.model.yaml'), { energyTeV: 13 }).sigmaPb // 0.1287 (pb; MC error 1.9e-4)
  */
 export function crossSection(model: Model, options: CrossSectionOptions): CrossSectionResult {
+  const settings = crossSectionSettings(options);
+  const base: ChannelIntegrationOptions = { sqrtS: 1000 * options.energyTeV, ...settings };
+  return crossSectionOf(model, options.energyTeV, model.channels.map((channel) => integrateChannel(channel, base)), settings);
+}
+
+/** The checked settings of a cross section, defaults filled in. */
+export interface CrossSectionSettings {
+  pdf: PartonDensity;
+  scaleFactor: number;
+  seed: number;
+  targetRelativeError: number;
+}
+
+export function crossSectionSettings(options: CrossSectionOptions): CrossSectionSettings {
   const scaleFactor = options.scaleFactor ?? 1;
   const seed = options.seed ?? DEFAULT_SEED;
   const targetRelativeError = options.targetRelativeError ?? DEFAULT_TARGET_RELATIVE_ERROR;
   checkGeneratorOptions(options.energyTeV, seed, scaleFactor, targetRelativeError);
-  const pdf = options.pdf ?? lesHouchesToyDensities();
-  const base: ChannelIntegrationOptions = { sqrtS: 1000 * options.energyTeV, pdf, scaleFactor, seed, targetRelativeError };
+  return { pdf: options.pdf ?? lesHouchesToyDensities(), scaleFactor, seed, targetRelativeError };
+}
+
+/**
+ * The cross-section summary (channels, K-factors, scale band) from the central
+ * integrations of every channel of `model` (one per channel, in order): the
+ * band re-integrates each channel on its adapted grid at half and twice the
+ * scale. Shared by `crossSection` and the event generator's sampler, so a
+ * sample's weight and its reported cross section are one number.
+ */
+export function crossSectionOf(model: Model, energyTeV: number, integrations: readonly ChannelIntegration[], settings: CrossSectionSettings): CrossSectionResult {
+  const { pdf, scaleFactor, seed, targetRelativeError } = settings;
+  const base: ChannelIntegrationOptions = { sqrtS: 1000 * energyTeV, pdf, scaleFactor, seed, targetRelativeError };
   let reachedTarget = true;
-  const channels = model.channels.map((channel): ChannelCrossSection => {
-    const central = integrateChannel(channel, base);
+  const channels = model.channels.map((channel, i): ChannelCrossSection => {
+    const central = integrations[i]!;
     const lo = central.result.integral;
     const k = channel.kFactor;
     const scale = describeScale(channel, scaleFactor);
@@ -144,7 +169,7 @@ export function crossSection(model: Model, options: CrossSectionOptions): CrossS
   const double = totalAt((c) => c.sigmaDoubleScalePb);
   return {
     model: model.name,
-    energyTeV: options.energyTeV,
+    energyTeV,
     sigmaPb,
     errorPb,
     scaleBandPb: [Math.min(sigmaPb, half, double), Math.max(sigmaPb, half, double)],

@@ -39,6 +39,8 @@ export interface GenerationOptions {
   pdf?: PartonDensity;
   /** Particle ids left undecayed (for studies of the hard process). @default [] */
   stable?: readonly number[];
+  /** Relative MC error the sampler's integration aims at. @default the cross-section default (0.5%) */
+  targetRelativeError?: number;
 }
 
 /** Called with each finished event (the record is reused: copy it to keep it) and its index in the sample. */
@@ -134,7 +136,12 @@ export function prepareEventGeneration(model: Model, options: GenerationOptions)
   for (const id of options.pointId ?? []) {
     if (!(Number.isSafeInteger(id) && id >= 0)) throw new TamisError('bad_input', `point ids must be whole numbers >= 0, got ${id}`, { key: 'pointId' });
   }
-  const sampler = prepareHardSampler(model, { energyTeV: options.energyTeV, seed: options.seed, pdf: options.pdf ?? lesHouchesToyDensities() });
+  const sampler = prepareHardSampler(model, {
+    energyTeV: options.energyTeV,
+    seed: options.seed,
+    pdf: options.pdf ?? lesHouchesToyDensities(),
+    ...(options.targetRelativeError === undefined ? {} : { targetRelativeError: options.targetRelativeError }),
+  });
   const decayer = createDecayer(model.particles, model.decayTables, { stable: options.stable ?? [] });
   return new EventGenerator(model, options, sampler, decayer);
 }

@@ -28,7 +28,7 @@ import type { PartonDensity } from '../physics/partonDensity.js';
 import { lesHouchesToyDensities } from '../physics/pdf/index.js';
 import { RandomStream } from '../physics/random.js';
 import { integrateChannel, STREAM_MAXIMUM_SEARCH, type ChannelIntegration } from './channelIntegration.js';
-import { checkGeneratorOptions, DEFAULT_SEED, DEFAULT_TARGET_RELATIVE_ERROR } from './crossSection.js';
+import { checkGeneratorOptions, crossSectionOf, DEFAULT_SEED, DEFAULT_TARGET_RELATIVE_ERROR, type CrossSectionResult, type CrossSectionSettings } from './crossSection.js';
 import { POINT_COS_THETA, POINT_S, POINT_SCALE, POINT_X1, POINT_X2, POINT_Y, type HadronicIntegrand } from './hadronicIntegrand.js';
 import type { Model } from './model/types.js';
 import type { VegasGrid } from './vegas.js';
@@ -97,7 +97,13 @@ export class HardSampler {
   private readonly x = new Float64Array(3);
   private readonly bins = new Int32Array(3);
 
-  constructor(model: Model, energyTeV: number, prepared: readonly PreparedChannel[]) {
+  private readonly integrations: readonly ChannelIntegration[];
+  private readonly settings: CrossSectionSettings;
+  private summary: CrossSectionResult | undefined;
+
+  constructor(model: Model, energyTeV: number, prepared: readonly PreparedChannel[], integrations: readonly ChannelIntegration[], settings: CrossSectionSettings) {
+    this.integrations = integrations;
+    this.settings = settings;
     this.model = model;
     this.energyTeV = energyTeV;
     this.sqrtS = 1000 * energyTeV;
@@ -113,6 +119,16 @@ export class HardSampler {
       sum += p.info.sigmaPb;
       this.cumulative[i] = sum / this.crossSectionPb;
     });
+  }
+
+  /**
+   * The cross-section summary of this sample (channels, K-factors, scale band),
+   * equal to what `crossSection` gives for the same model, energy and settings.
+   * The scale band is integrated on first call.
+   */
+  crossSection(): CrossSectionResult {
+    this.summary ??= crossSectionOf(this.model, this.energyTeV, this.integrations, this.settings);
+    return this.summary;
   }
 
   /** Share of the cross section under-represented by overweight points so far (0 when none). */
@@ -217,10 +233,13 @@ export function prepareHardSampler(model: Model, options: HardSamplerOptions): H
   const scaleFactor = options.scaleFactor ?? 1;
   const targetRelativeError = options.targetRelativeError ?? DEFAULT_TARGET_RELATIVE_ERROR;
   checkGeneratorOptions(options.energyTeV, seed, scaleFactor, targetRelativeError);
-  const base = { sqrtS: 1000 * options.energyTeV, pdf: options.pdf ?? lesHouchesToyDensities(), scaleFactor, seed, targetRelativeError };
+  const settings: CrossSectionSettings = { pdf: options.pdf ?? lesHouchesToyDensities(), scaleFactor, seed, targetRelativeError };
+  const base = { sqrtS: 1000 * options.energyTeV, ...settings };
   const prepared: PreparedChannel[] = [];
+  const integrations: ChannelIntegration[] = [];
   for (const channel of model.channels) {
     const integration: ChannelIntegration = integrateChannel(channel, base);
+    integrations.push(integration);
     if (integration.grid === null || !(integration.result.integral > 0)) continue;
     const weights = sampleWeights(integration.integrand, integration.grid, MAXIMUM_SEARCH_CALLS, RandomStream.forStream(seed, STREAM_MAXIMUM_SEARCH, channel.index));
     const maxWeight = reducedMaximum(weights, OVERWEIGHT_TOLERANCE);
@@ -239,7 +258,7 @@ export function prepareHardSampler(model: Model, options: HardSamplerOptions): H
       grid: integration.grid,
     });
   }
-  return new HardSampler(model, options.energyTeV, prepared);
+  return new HardSampler(model, options.energyTeV, prepared, integrations, settings);
 }
 
 /** Weights f J of `calls` points drawn from a frozen grid. */

@@ -279,3 +279,18 @@ describe('reducedMaximum', () => {
     expect(reducedMaximum(Float64Array.of(2, 2, 2), 0.5)).toBe(2);
   });
 });
+
+describe('the sampler reports the cross section of its own sample', () => {
+  it('sampler.crossSection() equals crossSection() for the same model, energy and seed (one integration, one number)', async () => {
+    const { crossSection } = await import('../../src/generator/crossSection.js');
+    const model = loadModel('data-demo/benchmark.model.yaml');
+    const options = { energyTeV: 8, seed: 3, targetRelativeError: 0.01 };
+    const sampler = prepareHardSampler(model, options);
+    const fromSampler = sampler.crossSection();
+    const direct = crossSection(model, options);
+    expect(fromSampler.sigmaPb).toBe(direct.sigmaPb);
+    expect(fromSampler.sigmaPb).toBe(sampler.crossSectionPb);
+    expect(fromSampler.scaleBandPb).toEqual(direct.scaleBandPb);
+    expect(fromSampler.channels.map((c) => c.sigmaPb)).toEqual(direct.channels.map((c) => c.sigmaPb));
+  });
+});
