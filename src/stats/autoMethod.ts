@@ -7,7 +7,7 @@
  *    the region (or of the combination's equivalent single region, below) are
  *    at least ASYMPTOTIC_MIN_COUNT; `toys` below. The asymptotic formulas rest
  *    on Wald's approximation, whose error shrinks like 1/sqrt(count)
- *    (Cowan et al. 2011, section 3); tamis's own comparison of the two methods
+ *    (Cowan et al. 2011); tamis's own comparison of the two methods
  *    (tests/stats/asymptoticVersusToys.test.ts, figures in DEVELOPERS.md)
  *    finds the observed and median limits within 5% from 50 events on, while
  *    at a few events the asymptotic limits are 10-40% too strong.

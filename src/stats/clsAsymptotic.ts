@@ -1,7 +1,7 @@
 /**
  * CLs upper limits from the asymptotic distribution of q~_mu (G. Cowan,
  * K. Cranmer, E. Gross, O. Vitells, Eur. Phys. J. C 71 (2011) 1554,
- * arXiv:1007.1727, sections 3.7 and 4; Wald's approximation with the
+ * arXiv:1007.1727; Wald's approximation with the
  * "Asimov" data set giving sigma).
  *
  * The Asimov data set for the background-only hypothesis is each region's
@@ -13,7 +13,8 @@
  *   CLs = [1 - Phi(sqrt(q))] / Phi(sqrt(q_A) - sqrt(q))               for q <= q_A,
  *   CLs = [1 - Phi((q + q_A) / (2 sqrt(q_A)))] / [1 - Phi((q - q_A) / (2 sqrt(q_A)))]  for q > q_A
  *
- * (the two branches of the distribution of q~_mu, ibid. eqs. (65) and (66)).
+ * (the two branches of the distribution of q~_mu given there; the equation
+ * numbers, (65) and (66), are from memory).
  * Expected band N (N = 0, ±1, ±2): mu_N = sigma (Phi^-1(1 - alpha Phi(N)) + N),
  * solved self-consistently because sigma depends on mu for Poisson counts.
  */

@@ -11,7 +11,8 @@
  *
  * Each pseudo-experiment draws one nuisance parameter per correlation group and
  * one signal nuisance per region from their constraints (hybrid marginalisation,
- * Cousins and Highland, Nucl. Instrum. Meth. A320 (1992) 331), a background-only
+ * Cousins and Highland, Nucl. Instrum. Meth. A320 (1992) 331, reference from
+ * memory), a background-only
  * count per region (`samplePoisson`), and a signal count per region by inversion
  * of a stored uniform u, kept as E = -ln u (`poissonInverse`), so the ensemble is the same at every mu
  * (common random numbers) and the CLs curve has no random jitter between mu values.
@@ -34,6 +35,11 @@ import type { ToyLimits, ToySettings } from './clsToysSingle.js';
 
 /** Background used in the weight of a region with no background, in events. */
 const WEIGHT_BACKGROUND_FLOOR = 1e-6;
+/**
+ * Most (pseudo-experiment, region) pairs kept in memory: three doubles each,
+ * so 48 MB; with 40 regions that allows 50 000 pseudo-experiments.
+ */
+const MAX_STORED_COUNTS = 2_000_000;
 /** Toy limits carry a Monte Carlo error of ~1%: locating the crossing to 5e-4 (relative) is plenty. */
 const TOY_ROOT_TOLERANCE = { absolute: 1e-12, relative: 5e-4 };
 
@@ -63,7 +69,7 @@ class CombinedToys {
   private readonly weights: Float64Array;
   private readonly groupTheta: Float64Array;
   private backgroundStatistic = new Float64Array(0);
-  private sortedBackground = new Float64Array(0);
+  private quantileScratch = new Float64Array(0);
   private signalStatistic = new Float64Array(0);
   private tailSignal = new Float64Array(0);
   private tailBackground = new Float64Array(0);
@@ -91,7 +97,7 @@ class CombinedToys {
       this.signalExponentials = exponentials;
       const perToy = capacity / regions;
       this.backgroundStatistic = new Float64Array(perToy);
-      this.sortedBackground = new Float64Array(perToy);
+      this.quantileScratch = new Float64Array(perToy);
       this.signalStatistic = new Float64Array(perToy);
       this.tailSignal = new Float64Array(perToy);
       this.tailBackground = new Float64Array(perToy);
@@ -150,7 +156,7 @@ class CombinedToys {
     let threshold = this.fillStatistics(mu);
     const size = this.size;
     if (band >= 0) {
-      const scratch = this.sortedBackground.subarray(0, size);
+      const scratch = this.quantileScratch.subarray(0, size);
       scratch.set(this.backgroundStatistic.subarray(0, size));
       threshold = quantileInPlace(scratch, probabilities[band]);
     }
@@ -181,7 +187,7 @@ class CombinedToys {
 
   run(guess: number): ToyLimits {
     const { minToys, tolerance } = this.settings;
-    const maxToys = Math.max(1, Math.min(this.settings.maxToys, Math.floor(8e6 / this.model.regionCount)));
+    const maxToys = Math.max(1, Math.min(this.settings.maxToys, Math.floor(MAX_STORED_COUNTS / this.model.regionCount)));
     const probabilities = bandProbabilities();
     let size = Math.min(minToys, maxToys);
     let observedGuess = guess;

@@ -2,7 +2,8 @@
  * CLs for one counting region with pseudo-experiments that marginalise the
  * nuisance parameters over their constraints (the hybrid Bayesian-frequentist
  * treatment, R. D. Cousins and V. L. Highland, Nucl. Instrum. Meth. A320
- * (1992) 331; common practice for CLs with systematic uncertainties), with the
+ * (1992) 331, reference from memory; common practice for CLs with
+ * systematic uncertainties), with the
  * observed count n as test statistic (for one region every likelihood-ratio
  * statistic orders outcomes like n):
  *

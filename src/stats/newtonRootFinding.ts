@@ -1,6 +1,6 @@
 /**
  * Newton's method safeguarded by bisection inside a bracket (Numerical
- * Recipes, 3rd ed., section 9.4, "rtsafe"), for functions whose derivative is
+ * Recipes, 3rd ed., "rtsafe"; section from memory: 9.4), for functions whose derivative is
  * cheap (the log CLs curves of the exact and pseudo-experiment methods).
  * Infinite or undefined steps fall back to bisection, so the result is always
  * a finite number inside the bracket.

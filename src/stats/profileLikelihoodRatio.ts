@@ -1,7 +1,7 @@
 /**
  * The profile likelihood ratio statistic q~_mu for upper limits (G. Cowan,
  * K. Cranmer, E. Gross, O. Vitells, Eur. Phys. J. C 71 (2011) 1554,
- * arXiv:1007.1727, section 3.7):
+ * arXiv:1007.1727, the section on q~_mu for upper limits):
  *
  *   q~_mu = -2 ln [ L(mu, theta^^(mu)) / L(max(mu^, 0), theta^) ]   for mu^ <= mu,
  *   q~_mu = 0                                                        for mu^ > mu,

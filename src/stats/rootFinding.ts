@@ -1,7 +1,8 @@
 /**
  * Bracketing root finders that always return a finite number inside the
  * bracket: bracket expansion, Brent's method (R. P. Brent, "Algorithms for
- * Minimization without Derivatives", Prentice-Hall 1973, chapter 4) and
+ * Minimization without Derivatives", Prentice-Hall 1973, chapter 4 from
+ * memory) and
  * bisection. Newton-based finders are in `newtonRootFinding.ts`.
  * Infinite function values are accepted and only their sign is used
  * (a bisection step replaces the interpolation), so a likelihood that is

@@ -47,11 +47,15 @@ export interface LimitOptions {
   rng?: RandomStream;
   /** Seed for pseudo-experiments when `rng` is absent. @default 1 */
   seed?: number;
-  /** Pseudo-experiments run until the CLs error at every reported limit is below this (absolute). @default 0.05 * (1 - cl) */
+  /** Pseudo-experiments are added until the standard error of CLs at the observed limit is below this (absolute). @default 0.05 * (1 - cl) */
   toyTolerance?: number;
   /** Fewest pseudo-experiments. @default 1000 */
   minToys?: number;
-  /** Most pseudo-experiments (the reported error says how far the tolerance was reached). @default 1e6 for one region, 2e5 for a combination */
+  /**
+   * Most pseudo-experiments (the reported error says how far the tolerance was
+   * reached); a combination also keeps at most 2e6 / regions of them in memory.
+   * @default 1e6 for one region, 2e5 for a combination
+   */
   maxToys?: number;
 }
 

@@ -78,7 +78,7 @@ describe('asymptotic CLs (Cowan, Cranmer, Gross, Vitells, Eur. Phys. J. C 71 (20
     }
   });
 
-  it('the Asimov data set reproduces the median expected limit as its observed limit (Cowan et al. 2011, section 3.8)', () => {
+  it('the Asimov data set reproduces the median expected limit as its observed limit (the Asimov property of Cowan et al. 2011)', () => {
     const model = new CountingModel([region(0, 37.5, 6)], 'gaussian');
     const { observed } = asymptoticLimits(new CountingModel([region(37.5, 37.5, 6)], 'gaussian'), 0.95);
     expectClose(observed, asymptoticLimits(model, 0.95).expected.median, { rel: 1e-6 });
