@@ -72,6 +72,21 @@ describe('combination of disjoint regions (limits on the signal strength mu)', (
     expect(equivalentSingleRegion([{ observed: 5, background: 4, signal: 1 }, { observed: 5, background: 4, signal: 1 }])).toEqual({ observed: 10, background: 8 });
   });
 
+  it('signal uncertainties weaken the combination; truncated Gaussian groups with a zero background work; the error meets the tolerance', () => {
+    const regions = [
+      { observed: 2, background: 0, backgroundUncertainty: 0.4, signal: 1, group: 'g' },
+      { observed: 5, background: 3.5, backgroundUncertainty: 1.2, signal: 1.5, group: 'g' },
+      { observed: 1, background: 1.1, backgroundUncertainty: 0.3, signal: 0.5 },
+    ];
+    for (const uncertaintyModel of ['lognormal', 'gaussian'] as const) {
+      const plain = combinedUpperLimit(regions, { method: 'toys', uncertaintyModel, seed: 6 });
+      const withSignal = combinedUpperLimit(regions.map((r) => ({ ...r, signalUncertainty: 0.4 })), { method: 'toys', uncertaintyModel, seed: 6 });
+      expect(withSignal.observed, uncertaintyModel).toBeGreaterThan(plain.observed);
+      expect(plain.clsAtLimitError).toBeLessThanOrEqual(0.0025);
+      for (let k = 1; k < BAND_KEYS.length; k++) expect(withSignal.expected[BAND_KEYS[k]]).toBeGreaterThanOrEqual(withSignal.expected[BAND_KEYS[k - 1]]);
+    }
+  });
+
   it('rejects exact for several regions, and bad regions with their index and name', () => {
     const two = [{ observed: 1, background: 1, signal: 1 }, { observed: 1, background: 1, signal: 1 }];
     expect(() => combinedUpperLimit(two, { method: 'exact' })).toThrow(/exact method handles one region/);
