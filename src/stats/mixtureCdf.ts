@@ -153,9 +153,10 @@ export function mixtureQuantiles(
     for (const p of probabilities) {
       while (average < p && n < cap) {
         n++;
+        const inverse = 1 / n;
         average = 0;
         for (let k = 0; k < size; k++) {
-          probability[k] *= backgrounds[k] / n;
+          probability[k] *= backgrounds[k] * inverse;
           cumulative[k] += probability[k];
           average += cumulative[k];
         }
