@@ -18,6 +18,7 @@ const COMMANDS: readonly (() => Promise<CommandModule>)[] = [
   () => import('./commands/xsec.js'),
   () => import('./commands/generate.js'),
   () => import('./commands/limit.js'),
+  () => import('./commands/recast.js'),
 ];
 
 /** Builds the program with every command registered (exported for tests and docs). */

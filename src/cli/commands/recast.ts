@@ -1,0 +1,51 @@
+/**
+ * `tamis recast MODEL --analyses PATHS`: one model point through every
+ * analysis, with limits, a terminal table and the files of the run.
+ */
+import type { Command } from 'commander';
+import { parseListOption, parseNumberListOption, parseNumberOption } from '../options.js';
+import { parseLimitChoices } from '../limitChoices.js';
+import { progressBar } from '../progress.js';
+
+export function register(program: Command): void {
+  program
+    .command('recast')
+    .description('recast one model point: generate at each energy, run every analysis, compute CLs limits, write the report')
+    .argument('<model>', 'model file (*.model.yaml)')
+    .requiredOption('--analyses <paths>', 'comma-separated analysis files or folders (a folder means its *.yaml files)')
+    .option('--energy <list>', 'collider energies in TeV, e.g. 8,13 (default: every energy of the analyses)')
+    .option('--events <n>', 'generated events per energy', '50000')
+    .option('--seed <n>', 'seed of generation, detector and pseudo-experiments', '1')
+    .option('--workers <n>', 'worker threads (default: one per core)')
+    .option('--out <folder>', 'folder for summary.json, regions.csv, cutflow.csv and report.html', 'tamis-recast')
+    .option('--cl <level>', 'confidence level of the limits', '0.95')
+    .option('--method <name>', 'CLs method: exact, toys, asymptotic or auto', 'auto')
+    .option('--uncertainty-model <name>', 'background uncertainty shape: lognormal or gaussian', 'lognormal')
+    .action(async (modelFile: string, options: { analyses: string; energy?: string; events: string; seed: string; workers?: string; out: string; cl: string; method: string; uncertaintyModel: string }) => {
+      const analyses = parseListOption('--analyses', options.analyses);
+      const energies = options.energy === undefined ? undefined : parseNumberListOption('--energy', options.energy, { min: 0.1, max: 100 });
+      const events = parseNumberOption('--events', options.events, { min: 1, max: 1e8, integer: true });
+      const seed = parseNumberOption('--seed', options.seed, { min: 0, max: Number.MAX_SAFE_INTEGER, integer: true });
+      const workers = options.workers === undefined ? undefined : parseNumberOption('--workers', options.workers, { min: 1, max: 256, integer: true });
+      const limits = parseLimitChoices(options);
+      const { runRecast } = await import('../../recast/runRecast.js');
+      const { recastTerminalTable } = await import('../../report/recastTables.js');
+      const progress = progressBar('events');
+      const { result, files } = await runRecast({
+        modelFile,
+        analyses,
+        ...(energies ? { energies } : {}),
+        events,
+        seed,
+        ...(workers ? { workers } : {}),
+        outFolder: options.out,
+        ...limits,
+        command: `tamis ${process.argv.slice(2).join(' ')}`,
+        onProgress: (done, total) => progress.update(done, total),
+      }).finally(() => progress.stop());
+      const xs = result.energies.map((e) => `${e.energyTeV} TeV: ${e.sigmaPb.toPrecision(4)} pb`).join(', ');
+      process.stdout.write(`${result.model.name}: ${xs}; ${events} events per energy, seed ${seed}\n\n${recastTerminalTable(result)}\n\n`);
+      process.stdout.write(`wrote ${files.join(', ')}\n`);
+      process.stdout.write('approximate reinterpretation: confirm exclusions with the experiments\u2019 own tools before publishing\n');
+    });
+}

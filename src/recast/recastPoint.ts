@@ -1,0 +1,117 @@
+/**
+ * One model point end to end: the cross section at each energy, events in
+ * chunks on worker threads, the detector and every analysis of that energy in
+ * one pass, then limits per analysis. The result is plain data (`PointResult`)
+ * from which every output is written.
+ */
+import { resolve } from 'node:path';
+import { TamisError } from '../errors.js';
+import { EVENTS_PER_CHUNK } from '../generator/generateEvents.js';
+import { parseModel } from '../generator/model/loader.js';
+import type { Analysis } from '../selection/analysis.js';
+import { mergeSelectionResults } from '../selection/results.js';
+import type { LimitMethod, UncertaintyModel } from '../stats/index.js';
+import { analysisOutcome } from './analysisOutcome.js';
+import { groupByDetector, runChunk, sha256, type ChunkResult, type ChunkTask, type ModelSource } from './eventChunks.js';
+import type { EnergyCrossSection, PointResult } from './types.js';
+import { compiledModuleUrl, runTasks } from './workerPool.js';
+
+export interface RecastOptions {
+  model: ModelSource;
+  /** Analyses to run (loaded); those at energies not in `energies` are left out. */
+  analyses: readonly Analysis[];
+  /** Collider energies in TeV. @default every energy of the analyses */
+  energies?: readonly number[];
+  /** Generated events per energy. */
+  events: number;
+  seed: number;
+  /** Scan parameters of this point, recorded in the result. @default {} */
+  parameters?: Record<string, number>;
+  /** Ids of the point in a scan (part of every random stream). @default [] */
+  pointId?: readonly number[];
+  /** Worker threads for the event chunks. @default 1 */
+  workers?: number;
+  /** Confidence level. @default 0.95 */
+  cl?: number;
+  method?: LimitMethod;
+  uncertaintyModel?: UncertaintyModel;
+  /** Relative MC error of the cross-section integration. @default 0.005 */
+  targetRelativeError?: number;
+  /** Progress in chunks done out of all chunks. */
+  onProgress?: (done: number, total: number) => void;
+}
+
+/** Default relative MC error of the cross section in a recast (the generator's default). */
+export const RECAST_TARGET_RELATIVE_ERROR = 0.005;
+
+/** Energies to run: the requested ones (each must have an analysis) or all of the analyses'. */
+export function energiesToRun(analyses: readonly Analysis[], requested?: readonly number[]): number[] {
+  const available = [...new Set(analyses.map((a) => a.energyTev))].sort((a, b) => a - b);
+  if (requested === undefined) return available;
+  for (const e of requested) {
+    if (!available.some((a) => Math.abs(a - e) < 1e-9)) {
+      throw new TamisError('bad_input', `no analysis at ${e} TeV among the ones given (energies: ${available.join(', ')} TeV)`, { key: '--energy' });
+    }
+  }
+  return [...requested].sort((a, b) => a - b);
+}
+
+/** Runs one model point; see the module comment. */
+export async function recastPoint(options: RecastOptions): Promise<PointResult> {
+  // Parse here as well: model errors surface before any worker starts.
+  const model = parseModel(options.model.text, options.model.file);
+  const energies = energiesToRun(options.analyses, options.energies);
+  if (!(Number.isInteger(options.events) && options.events >= 1)) {
+    throw new TamisError('bad_input', `number of events must be a whole number >= 1, got ${options.events}`, { key: '--events' });
+  }
+  const pointId = [...(options.pointId ?? [])];
+  const target = options.targetRelativeError ?? RECAST_TARGET_RELATIVE_ERROR;
+  const chunksPerEnergy = Math.ceil(options.events / EVENTS_PER_CHUNK);
+  const tasks: ChunkTask[] = [];
+  const analysesAt = energies.map((e) => options.analyses.filter((a) => Math.abs(a.energyTev - e) < 1e-9));
+  energies.forEach((energyTeV, i) => {
+    const analysisFiles = analysesAt[i]!.map((a) => resolve(a.file));
+    for (let chunk = 0; chunk < chunksPerEnergy; chunk++) {
+      tasks.push({ model: options.model, energyTeV, events: options.events, seed: options.seed, pointId, targetRelativeError: target, analysisFiles, chunk });
+    }
+  });
+  let done = 0;
+  const chunks = await runTasks<ChunkTask, ChunkResult>({
+    tasks,
+    workers: options.workers ?? 1,
+    script: () => compiledModuleUrl('recast/recastWorker.js'),
+    handle: runChunk,
+    onResult: () => options.onProgress?.(++done, tasks.length),
+  });
+  const settings = {
+    cl: options.cl ?? 0.95,
+    method: options.method ?? 'auto',
+    uncertaintyModel: options.uncertaintyModel ?? 'lognormal',
+    seed: options.seed,
+    pointId,
+  };
+  const sigmas: EnergyCrossSection[] = [];
+  const outcomes = energies.flatMap((energyTeV, i) => {
+    const mine = chunks.filter((c, k) => tasks[k]!.energyTeV === energyTeV).sort((a, b) => a.chunk - b.chunk);
+    const xs = mine[0]?.crossSection;
+    if (xs === undefined) throw new TamisError('internal', `no cross section came back for ${energyTeV} TeV`);
+    sigmas.push(xs);
+    const groups = groupByDetector(analysesAt[i]!);
+    const sigma = xs.sigmaPb;
+    return groups.flatMap((group, g) => {
+      const merged = mergeSelectionResults(mine.map((c) => c.groups[g]!.results));
+      return group.analyses.map((analysis, a) => analysisOutcome(analysis, merged.analyses[a]!, sigma, settings));
+    });
+  });
+  // Report analyses in the order they were given.
+  const order = new Map(options.analyses.map((a, i) => [a.id, i]));
+  outcomes.sort((x, y) => order.get(x.id)! - order.get(y.id)!);
+  return {
+    model: { name: model.name, file: options.model.file, sha256: sha256(options.model.text), parameters: { ...(options.parameters ?? {}) } },
+    seed: options.seed,
+    eventsPerEnergy: options.events,
+    cl: settings.cl,
+    energies: sigmas,
+    analyses: outcomes,
+  };
+}
