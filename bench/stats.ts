@@ -2,6 +2,7 @@
  * Figures of the statistics library: one limit (observed and the five expected
  * band edges) by each method, a pseudo-experiment ensemble of 1e5, and a whole
  * 40-region analysis (per-region limits, best-expected region, combination).
+ * Whole-run figures are the best of a few runs (least disturbed by other load).
  * The 40-region yields are invented for the benchmark (a plausible spread of
  * multi-lepton signal regions), not taken from any publication.
  */
@@ -17,6 +18,13 @@ function microsecondsPerLimit(cases: number, limit: (i: number) => number): numb
     for (let k = 0; k < batch; k++) sink += limit(i++ % cases);
   }, 50);
   return 1e6 / rate;
+}
+
+/** Fewest seconds of `repeats` runs of `fn`: the figure least disturbed by other processes. */
+function bestSecondsOf(repeats: number, fn: () => void): number {
+  let best = Number.POSITIVE_INFINITY;
+  for (let r = 0; r < repeats; r++) best = Math.min(best, secondsFor(fn));
+  return best;
 }
 
 /** Invented 40-region analysis: backgrounds from 0.3 to ~60 events, 15-40% uncertainties, two correlation groups. */
@@ -66,7 +74,7 @@ export const benchmarks: Benchmark[] = [
     measure: () => {
       const region = { observed: 8, background: 5, backgroundUncertainty: 1.5 };
       sink += upperLimit(region, { method: 'toys', minToys: 1000, maxToys: 1000 }).observed; // warm-up
-      return 1000 * secondsFor(() => {
+      return 1000 * bestSecondsOf(3, () => {
         sink += upperLimit(region, { method: 'toys', minToys: 100_000, maxToys: 100_000 }).observed;
       });
     },
@@ -78,7 +86,7 @@ export const benchmarks: Benchmark[] = [
       const regions = inventedAnalysis();
       const settings = { luminosity: 36.1, crossSection: 0.02 };
       sink += analysisLimits(regions.slice(0, 5), settings).bestRegion; // warm-up
-      return 1000 * secondsFor(() => {
+      return 1000 * bestSecondsOf(5, () => {
         sink += analysisLimits(regions, settings, { seed: 1 }).bestRegion;
       });
     },
@@ -90,7 +98,7 @@ export const benchmarks: Benchmark[] = [
       const regions = inventedAnalysis();
       const settings = { luminosity: 36.1, crossSection: 0.02 };
       sink += analysisLimits(regions.slice(0, 5), settings, { method: 'asymptotic' }).bestRegion; // warm-up
-      return 1000 * secondsFor(() => {
+      return 1000 * bestSecondsOf(5, () => {
         sink += analysisLimits(regions, settings, { method: 'asymptotic' }).bestRegion;
       });
     },
