@@ -19,3 +19,6 @@ export { CountingModel, type ModelRegion } from './countingModel.js';
 export { ProfileFit } from './profileFit.js';
 export { ProfileLikelihoodRatio } from './profileLikelihoodRatio.js';
 export { LIMIT_METHODS, UNCERTAINTY_MODELS } from './validate.js';
+export { parseRegionsCsv, readRegionsCsv, type RegionRow } from './regionsCsv.js';
+export { regionTableLimits, type RegionTableLimits } from './regionTable.js';
+export { limitJson, regionTableJson, type LimitJson } from './limitReport.js';
