@@ -10,6 +10,7 @@ import type { CommandModule } from './command.js';
 
 /** Command modules, in the order `tamis --help` lists them. Imported lazily. */
 const COMMANDS: readonly (() => Promise<CommandModule>)[] = [
+  () => import('./commands/demo.js'),
   () => import('./commands/check.js'),
   () => import('./commands/cutflow.js'),
   () => import('./commands/newAnalysis.js'),
@@ -19,6 +20,10 @@ const COMMANDS: readonly (() => Promise<CommandModule>)[] = [
   () => import('./commands/generate.js'),
   () => import('./commands/limit.js'),
   () => import('./commands/recast.js'),
+  () => import('./commands/scan.js'),
+  () => import('./commands/merge.js'),
+  () => import('./commands/compare.js'),
+  () => import('./commands/validate.js'),
 ];
 
 /** Builds the program with every command registered (exported for tests and docs). */

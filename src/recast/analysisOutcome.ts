@@ -11,7 +11,7 @@
  */
 import { RandomStream } from '../physics/random.js';
 import type { Analysis } from '../selection/analysis.js';
-import type { AnalysisResult } from '../selection/results.js';
+import { weightedCount, type AnalysisResult } from '../selection/results.js';
 import { analysisLimits, type LimitMethod, type RecastRegion, type UncertaintyModel } from '../stats/index.js';
 import { streamIdOf } from './eventChunks.js';
 import type { AnalysisOutcome, CutCost, RegionOutcome, Verdict } from './types.js';
@@ -22,6 +22,8 @@ export const STREAM_LIMITS = 0x4c494d53;
 export interface LimitSettings {
   cl: number;
   method: LimitMethod;
+  /** Method of the combination of an analysis's regions. @default `method` */
+  combinationMethod?: LimitMethod;
   uncertaintyModel: UncertaintyModel;
   seed: number;
   pointId: readonly number[];
@@ -48,7 +50,12 @@ export function analysisOutcome(analysis: Analysis, selected: AnalysisResult, cr
   });
   const limits = analysisLimits(
     recastRegions,
-    { luminosity: analysis.luminosityIfb, crossSection: crossSectionPb, combine: analysis.regionsDisjoint },
+    {
+      luminosity: analysis.luminosityIfb,
+      crossSection: crossSectionPb,
+      combine: analysis.regionsDisjoint,
+      ...(settings.combinationMethod === undefined ? {} : { combinationMethod: settings.combinationMethod }),
+    },
     {
       cl: settings.cl,
       method: settings.method,
@@ -91,6 +98,7 @@ export function analysisOutcome(analysis: Analysis, selected: AnalysisResult, cr
   // Cut costs of the best region, or of the most efficient region when none is sensitive.
   let focus = limits.bestRegion;
   if (focus < 0) focus = mostBlamedRegion(selected);
+  const inRegions = signalRegionEfficiency(selected);
   return {
     id: analysis.id,
     summary: analysis.summary,
@@ -100,6 +108,7 @@ export function analysisOutcome(analysis: Analysis, selected: AnalysisResult, cr
     luminosityIfb: analysis.luminosityIfb,
     detector: analysis.detectorFile.replace(/^.*[\\/]/, ''),
     events: selected.total.events,
+    signalRegionEfficiency: inRegions,
     steps: selected.steps.map((s) => ({ name: s.name, cut: s.cut, efficiency: s.efficiency, efficiencyError: s.efficiencyError, selectedEvents: s.events })),
     regions,
     bestRegion: best?.name ?? null,
@@ -113,8 +122,28 @@ export function analysisOutcome(analysis: Analysis, selected: AnalysisResult, cr
       : null,
     verdict,
     cutCosts: focus >= 0 ? cutCostsOf(selected, focus) : [],
+    requirementCosts: [],
     overlaps: selected.overlaps.map((o) => ({ first: o.first, second: o.second, events: o.events, exampleEvents: o.exampleEvents })),
   };
+}
+
+/** Efficiency of the union of disjoint regions (exact weighted binomial error), or of the best single region. */
+export function signalRegionEfficiency(selected: AnalysisResult): { value: number; error: number } {
+  if (selected.regionsDisjoint && !selected.disjointViolated) {
+    let weight = 0;
+    let weight2 = 0;
+    let events = 0;
+    for (const r of selected.regions) {
+      weight += r.weight;
+      weight2 += r.weight2;
+      events += r.events;
+    }
+    const union = weightedCount(weight, weight2, events, selected.total.weight, selected.total.weight2);
+    return { value: union.efficiency, error: union.efficiencyError };
+  }
+  let best = { value: 0, error: 0 };
+  for (const r of selected.regions) if (r.efficiency > best.value) best = { value: r.efficiency, error: r.efficiencyError };
+  return best;
 }
 
 /** The region whose single most expensive cut recovers the most signal (for analyses that select nothing). */

@@ -21,6 +21,7 @@ import type { Analysis } from '../selection/analysis.js';
 import { createSelection } from '../selection/engine.js';
 import { loadAnalysis } from '../selection/loader.js';
 import type { SelectionResults } from '../selection/results.js';
+import { requirementVariants } from './requirementCosts.js';
 import type { EnergyCrossSection } from './types.js';
 
 /** Stream tag of the recast's detector random numbers ("RDET"). */
@@ -45,6 +46,8 @@ export interface ChunkTask {
   /** Analysis files (absolute paths) of this energy, in report order. */
   analysisFiles: string[];
   chunk: number;
+  /** Also run the requirement variants of each analysis (see requirementCosts.ts). */
+  requirementCosts: boolean;
 }
 
 /** Per detector profile, the selection results of its analyses for one chunk. */
@@ -129,7 +132,7 @@ export function runChunk(task: ChunkTask): ChunkResult {
   const groups = groupByDetector(task.analysisFiles.map(analysisFor)).map((group) => ({
     detectorFile: group.detectorFile,
     detector: detectorFor(group.detectorFile),
-    selection: createSelection(group.analyses),
+    selection: createSelection(task.requirementCosts ? [...group.analyses, ...group.analyses.flatMap(requirementVariants)] : group.analyses),
     rng: RandomStream.forStream(task.seed, ...task.pointId, Math.round(1000 * task.energyTeV), STREAM_RECAST_DETECTOR, task.chunk, streamIdOf(group.detectorFile.replace(/^.*[\\/]/, ''))),
   }));
   const reco = new RecoEvent();

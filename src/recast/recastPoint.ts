@@ -9,9 +9,10 @@ import { TamisError } from '../errors.js';
 import { EVENTS_PER_CHUNK } from '../generator/generateEvents.js';
 import { parseModel } from '../generator/model/loader.js';
 import type { Analysis } from '../selection/analysis.js';
-import { mergeSelectionResults } from '../selection/results.js';
+import { mergeSelectionResults, type AnalysisResult } from '../selection/results.js';
 import type { LimitMethod, UncertaintyModel } from '../stats/index.js';
 import { analysisOutcome } from './analysisOutcome.js';
+import { requirementCosts, type RequirementCost } from './requirementCosts.js';
 import { groupByDetector, runChunk, sha256, type ChunkResult, type ChunkTask, type ModelSource } from './eventChunks.js';
 import type { EnergyCrossSection, PointResult } from './types.js';
 import { compiledModuleUrl, runTasks } from './workerPool.js';
@@ -34,9 +35,13 @@ export interface RecastOptions {
   /** Confidence level. @default 0.95 */
   cl?: number;
   method?: LimitMethod;
+  /** Method of each analysis's combination of regions. @default `method` */
+  combinationMethod?: LimitMethod;
   uncertaintyModel?: UncertaintyModel;
   /** Relative MC error of the cross-section integration. @default 0.005 */
   targetRelativeError?: number;
+  /** Also measure what each requirement costs each analysis (see requirementCosts.ts). @default true */
+  requirementCosts?: boolean;
   /** Progress in chunks done out of all chunks. */
   onProgress?: (done: number, total: number) => void;
 }
@@ -56,8 +61,16 @@ export function energiesToRun(analyses: readonly Analysis[], requested?: readonl
   return [...requested].sort((a, b) => a - b);
 }
 
-/** Runs one model point; see the module comment. */
-export async function recastPoint(options: RecastOptions): Promise<PointResult> {
+/** The selection results of one model point, before any limit. */
+export interface SelectedPoint {
+  modelName: string;
+  energies: EnergyCrossSection[];
+  /** Per analysis (in the order given), its merged selection results. */
+  selections: { analysis: Analysis; selected: AnalysisResult; crossSectionPb: number; requirementCosts: RequirementCost[] }[];
+}
+
+/** Generates the point at each energy and runs every analysis (no limits). */
+export async function selectPoint(options: RecastOptions): Promise<SelectedPoint> {
   // Parse here as well: model errors surface before any worker starts.
   const model = parseModel(options.model.text, options.model.file);
   const energies = energiesToRun(options.analyses, options.energies);
@@ -67,12 +80,13 @@ export async function recastPoint(options: RecastOptions): Promise<PointResult> 
   const pointId = [...(options.pointId ?? [])];
   const target = options.targetRelativeError ?? RECAST_TARGET_RELATIVE_ERROR;
   const chunksPerEnergy = Math.ceil(options.events / EVENTS_PER_CHUNK);
+  const withCosts = options.requirementCosts ?? true;
   const tasks: ChunkTask[] = [];
   const analysesAt = energies.map((e) => options.analyses.filter((a) => Math.abs(a.energyTev - e) < 1e-9));
   energies.forEach((energyTeV, i) => {
     const analysisFiles = analysesAt[i]!.map((a) => resolve(a.file));
     for (let chunk = 0; chunk < chunksPerEnergy; chunk++) {
-      tasks.push({ model: options.model, energyTeV, events: options.events, seed: options.seed, pointId, targetRelativeError: target, analysisFiles, chunk });
+      tasks.push({ model: options.model, energyTeV, events: options.events, seed: options.seed, pointId, targetRelativeError: target, analysisFiles, chunk, requirementCosts: withCosts });
     }
   });
   let done = 0;
@@ -83,35 +97,46 @@ export async function recastPoint(options: RecastOptions): Promise<PointResult> 
     handle: runChunk,
     onResult: () => options.onProgress?.(++done, tasks.length),
   });
-  const settings = {
-    cl: options.cl ?? 0.95,
-    method: options.method ?? 'auto',
-    uncertaintyModel: options.uncertaintyModel ?? 'lognormal',
-    seed: options.seed,
-    pointId,
-  };
   const sigmas: EnergyCrossSection[] = [];
-  const outcomes = energies.flatMap((energyTeV, i) => {
+  const selections = energies.flatMap((energyTeV, i) => {
     const mine = chunks.filter((c, k) => tasks[k]!.energyTeV === energyTeV).sort((a, b) => a.chunk - b.chunk);
     const xs = mine[0]?.crossSection;
     if (xs === undefined) throw new TamisError('internal', `no cross section came back for ${energyTeV} TeV`);
     sigmas.push(xs);
-    const groups = groupByDetector(analysesAt[i]!);
-    const sigma = xs.sigmaPb;
-    return groups.flatMap((group, g) => {
+    return groupByDetector(analysesAt[i]!).flatMap((group, g) => {
       const merged = mergeSelectionResults(mine.map((c) => c.groups[g]!.results));
-      return group.analyses.map((analysis, a) => analysisOutcome(analysis, merged.analyses[a]!, sigma, settings));
+      const byId = new Map(merged.analyses.map((r) => [r.id, r]));
+      return group.analyses.map((analysis, a) => ({
+        analysis,
+        selected: merged.analyses[a]!,
+        crossSectionPb: xs.sigmaPb,
+        requirementCosts: withCosts ? requirementCosts(analysis, byId) : [],
+      }));
     });
   });
-  // Report analyses in the order they were given.
+  // Analyses in the order they were given.
   const order = new Map(options.analyses.map((a, i) => [a.id, i]));
-  outcomes.sort((x, y) => order.get(x.id)! - order.get(y.id)!);
+  selections.sort((x, y) => order.get(x.analysis.id)! - order.get(y.analysis.id)!);
+  return { modelName: model.name, energies: sigmas, selections };
+}
+
+/** Runs one model point with limits; see the module comment. */
+export async function recastPoint(options: RecastOptions): Promise<PointResult> {
+  const point = await selectPoint(options);
+  const settings = {
+    cl: options.cl ?? 0.95,
+    method: options.method ?? 'auto',
+    ...(options.combinationMethod === undefined ? {} : { combinationMethod: options.combinationMethod }),
+    uncertaintyModel: options.uncertaintyModel ?? 'lognormal',
+    seed: options.seed,
+    pointId: [...(options.pointId ?? [])],
+  };
   return {
-    model: { name: model.name, file: options.model.file, sha256: sha256(options.model.text), parameters: { ...(options.parameters ?? {}) } },
+    model: { name: point.modelName, file: options.model.file, sha256: sha256(options.model.text), parameters: { ...(options.parameters ?? {}) } },
     seed: options.seed,
     eventsPerEnergy: options.events,
     cl: settings.cl,
-    energies: sigmas,
-    analyses: outcomes,
+    energies: point.energies,
+    analyses: point.selections.map((s) => ({ ...analysisOutcome(s.analysis, s.selected, s.crossSectionPb, settings), requirementCosts: s.requirementCosts })),
   };
 }

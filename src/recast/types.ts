@@ -4,6 +4,7 @@
  * Units: cross sections in pb, luminosity in fb^-1, energies in TeV.
  */
 import type { ExpectedLimits, ResolvedLimitMethod } from '../stats/index.js';
+import type { RequirementCost } from './requirementCosts.js';
 
 /** The model's cross section at one collider energy. */
 export interface EnergyCrossSection {
@@ -78,6 +79,11 @@ export interface AnalysisOutcome {
   /** Events generated (the denominator of every efficiency). */
   events: number;
   steps: StepOutcome[];
+  /**
+   * Signal efficiency of the signal regions as a whole: the union of the regions
+   * when they are disjoint, else the most efficient region; with its MC error.
+   */
+  signalRegionEfficiency: { value: number; error: number };
   regions: RegionOutcome[];
   /** Name of the best-expected region (null when no region selects any signal). */
   bestRegion: string | null;
@@ -87,6 +93,8 @@ export interface AnalysisOutcome {
   verdict: Verdict;
   /** For the best region (or the most efficient one): what each single cut costs, costliest first. */
   cutCosts: CutCost[];
+  /** What dropping every condition on one variable would give the signal regions, costliest first (empty when not measured). */
+  requirementCosts: RequirementCost[];
   /** Region pairs that shared events although declared disjoint. */
   overlaps: { first: string; second: string; events: number; exampleEvents: number[] }[];
 }

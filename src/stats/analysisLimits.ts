@@ -16,7 +16,7 @@ import {
   bestExpectedRegion, comparePublished, crossSectionLimit, exclusionRatio, signalEvents,
   signalUncertaintyWithEfficiency, type PublishedComparison,
 } from './physicsLimits.js';
-import { BAND_KEYS, type CountingRegion, type ExpectedLimits, type LimitOptions, type UpperLimitResult } from './types.js';
+import { BAND_KEYS, type CountingRegion, type ExpectedLimits, type LimitMethod, type LimitOptions, type UpperLimitResult } from './types.js';
 import { upperLimit } from './upperLimit.js';
 
 export interface RecastRegion extends CountingRegion {
@@ -42,6 +42,8 @@ export interface RecastSettings {
   foldEfficiencyError?: boolean;
   /** Combine the regions (they must be disjoint). @default true when there are several */
   combine?: boolean;
+  /** Method of the combination (pseudo-experiments over many regions are the slow part of a scan). @default the regions' method */
+  combinationMethod?: LimitMethod;
 }
 
 /** Observed and expected cross-section limits in pb, and r = sigma_model / sigma95. */
@@ -141,7 +143,11 @@ export function analysisLimits(regions: readonly RecastRegion[], settings: Recas
         ? signalUncertaintyWithEfficiency(region.efficiency, region.efficiencyError ?? 0, region.signalUncertainty ?? 0)
         : region.signalUncertainty ?? 0,
     }));
-    const limit = combinedUpperLimit(perPicobarn, { ...options, rng: streamFor(options, regions.length) });
+    const limit = combinedUpperLimit(perPicobarn, {
+      ...options,
+      ...(settings.combinationMethod === undefined ? {} : { method: settings.combinationMethod }),
+      rng: streamFor(options, regions.length),
+    });
     analysis.combined = { limit, sigma95: crossSectionLimits(limit.observed, limit.expected, (mu) => mu, crossSection) };
   }
   return analysis;
