@@ -4,7 +4,7 @@
  * from the top-level keys:
  *
  *   *.model.yaml                      model
- *   *.scan.yaml                       refused: not a kind this command reads
+ *   *.scan.yaml                       refused here (scans are checked by recast/checkAnyFile.ts)
  *   a file inside a `detectors/` folder detector profile
  *   top-level key `regions`           analysis
  *   top-level key `collider_energy_tev` detector profile

@@ -1,5 +1,5 @@
 /**
- * `tamis check FILE...`: validates analysis, detector-profile and model files.
+ * `tamis check FILE...`: validates analysis, detector-profile, model and scan files.
  * Prints `ok <file> (<kind>: <summary>)` per good file and the located error
  * per bad one; exits 1 when any file fails.
  */
@@ -9,14 +9,14 @@ import { formatError, TamisError } from '../../errors.js';
 export function register(program: Command): void {
   program
     .command('check')
-    .description('validate analysis, detector-profile and model files and say what each holds')
-    .argument('<files...>', 'files to check (kind from the name: *.model.yaml is a model, files in a detectors/ folder are profiles, others analyses)')
+    .description('validate analysis, detector-profile, model and scan files and say what each holds')
+    .argument('<files...>', 'files to check (kind from the name: *.model.yaml is a model, *.scan.yaml a scan, files in a detectors/ folder are profiles, others analyses)')
     .action(async (files: string[]) => {
-      const { checkFile } = await import('../../selection/checkFile.js');
+      const { checkAnyFile } = await import('../../recast/checkAnyFile.js');
       let failed = 0;
       for (const file of files) {
         try {
-          const outcome = await checkFile(file);
+          const outcome = await checkAnyFile(file);
           process.stdout.write(`ok ${file} (${outcome.kind}: ${outcome.summary})\n`);
         } catch (error) {
           if (!(error instanceof TamisError)) throw error;
