@@ -3,7 +3,7 @@
  * is renamed into place, so a killed run never leaves a half-written file
  * (rename is atomic within one file system, POSIX rename(2)).
  */
-import { mkdirSync, renameSync, rmSync, writeFileSync, openSync, writeSync, closeSync, fsyncSync } from 'node:fs';
+import { mkdirSync, renameSync, rmSync, writeFileSync, openSync, writeSync, closeSync, fsyncSync, readdirSync, statSync } from 'node:fs';
 import { dirname, basename, join } from 'node:path';
 import { TamisError } from '../errors.js';
 
@@ -81,5 +81,47 @@ export class AtomicFileWriter {
       // already closed
     }
     rmSync(this.tmp, { force: true });
+  }
+}
+
+const TEMPORARY = /^\..+\.(\d+)\.\d+\.tmp$/;
+
+/**
+ * Removes the temporary files that a killed run left in `folder` (names made
+ * by `temporaryPathFor`), when their process is gone and they are older than
+ * `minAgeSeconds`. Returns how many were removed.
+ */
+export function removeStaleTemporaries(folder: string, minAgeSeconds = 60): number {
+  let names: string[];
+  try {
+    names = readdirSync(folder);
+  } catch {
+    return 0;
+  }
+  let removed = 0;
+  const now = Date.now();
+  for (const name of names) {
+    const match = TEMPORARY.exec(name);
+    if (!match) continue;
+    const pid = Number(match[1]);
+    if (pid === process.pid || processIsAlive(pid)) continue;
+    const file = join(folder, name);
+    try {
+      if (now - statSync(file).mtimeMs < minAgeSeconds * 1000) continue;
+      rmSync(file, { force: true });
+      removed++;
+    } catch {
+      // gone already
+    }
+  }
+  return removed;
+}
+
+function processIsAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (error) {
+    return (error as NodeJS.ErrnoException).code === 'EPERM';
   }
 }

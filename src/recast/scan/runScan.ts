@@ -8,7 +8,7 @@
 import { existsSync, readFileSync, rmSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { TamisError } from '../../errors.js';
-import { writeFileAtomic } from '../../io/atomicWrite.js';
+import { removeStaleTemporaries, writeFileAtomic } from '../../io/atomicWrite.js';
 import { defaultWorkers } from '../runRecast.js';
 import { compiledModuleUrl, runTasks } from '../workerPool.js';
 import type { PointResult } from '../types.js';
@@ -85,6 +85,8 @@ export async function runScan(options: RunScanOptions): Promise<ScanRun> {
   const shard = options.shard ?? WHOLE_SCAN;
   const out = options.outFolder;
   if (options.fresh) rmSync(pointsFolder(out), { recursive: true, force: true });
+  removeStaleTemporaries(pointsFolder(out));
+  removeStaleTemporaries(out);
   const done = readCheckpoints(out, scan.fingerprint);
   const stored: StoredScan = { scan: describeScan(scan), points: scan.points.length };
   writeFileAtomic(join(out, 'scan.json'), encodeJson(stored));
