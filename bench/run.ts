@@ -14,6 +14,7 @@ const SUITES: readonly (() => Promise<{ benchmarks: Benchmark[] }>)[] = [
   () => import('./generator-xsec.js'),
   () => import('./generator-events.js'),
   () => import('./stats.js'),
+  () => import('./recast.js'),
 ];
 
 function formatValue(value: number): string {

@@ -35,6 +35,7 @@ export interface ModelSource {
 }
 
 export interface ChunkTask {
+  kind: 'chunk';
   model: ModelSource;
   energyTeV: number;
   /** Total events of the sample at this energy (fixes the chunk plan). */
@@ -57,7 +58,7 @@ export interface ChunkResult {
   /** The sample's cross section (chunk 0 only: every chunk shares the sampler). */
   crossSection?: EnergyCrossSection;
   /** One entry per detector profile, in the order the profiles first appear among the analyses. */
-  groups: { detectorFile: string; results: SelectionResults }[];
+  groups: { detectorFile: string; results: SelectionResults; variants?: SelectionResults }[];
 }
 
 /** Hash of a text into a stream id (31 bits, stable across runs and platforms). */
@@ -103,6 +104,17 @@ function analysisFor(file: string): Analysis {
   return analysis;
 }
 
+const variantCache = new Map<Analysis, Analysis[]>();
+
+function variantsFor(analysis: Analysis): Analysis[] {
+  let variants = variantCache.get(analysis);
+  if (variants === undefined) {
+    variants = requirementVariants(analysis);
+    variantCache.set(analysis, variants);
+  }
+  return variants;
+}
+
 function detectorFor(file: string): Detector {
   let detector = detectors.get(file);
   if (detector === undefined) {
@@ -132,7 +144,9 @@ export function runChunk(task: ChunkTask): ChunkResult {
   const groups = groupByDetector(task.analysisFiles.map(analysisFor)).map((group) => ({
     detectorFile: group.detectorFile,
     detector: detectorFor(group.detectorFile),
-    selection: createSelection(task.requirementCosts ? [...group.analyses, ...group.analyses.flatMap(requirementVariants)] : group.analyses),
+    selection: createSelection(group.analyses),
+    // Requirement variants need no cut blame: a separate selection without it is much cheaper.
+    variants: task.requirementCosts ? createSelection(group.analyses.flatMap(variantsFor), { blame: false }) : undefined,
     rng: RandomStream.forStream(task.seed, ...task.pointId, Math.round(1000 * task.energyTeV), STREAM_RECAST_DETECTOR, task.chunk, streamIdOf(group.detectorFile.replace(/^.*[\\/]/, ''))),
   }));
   const reco = new RecoEvent();
@@ -141,9 +155,14 @@ export function runChunk(task: ChunkTask): ChunkResult {
       const group = groups[g]!;
       group.detector.reconstruct(record, group.rng, reco);
       group.selection.process(reco, index);
+      group.variants?.process(reco, index);
     }
   });
-  const result: ChunkResult = { chunk: task.chunk, events, groups: groups.map((g) => ({ detectorFile: g.detectorFile, results: g.selection.results() })) };
+  const result: ChunkResult = {
+    chunk: task.chunk,
+    events,
+    groups: groups.map((g) => ({ detectorFile: g.detectorFile, results: g.selection.results(), ...(g.variants ? { variants: g.variants.results() } : {}) })),
+  };
   if (task.chunk === 0) {
     const xs = generator.sampler.crossSection();
     result.crossSection = {

@@ -28,29 +28,57 @@ export interface RequirementCost {
 const UNION = '#union';
 const WITHOUT = '#without:';
 
-/** An always-true (`x != NaN`) or always-false (`x == NaN`) atom on a variable. */
+/** A relaxed expression: a constant, or an expression without conditions on the relaxed variable. */
+type Relaxed = boolean | CutExpression;
+
+/**
+ * Drops the conditions on `variable`: each becomes "passes" where it is not
+ * negated and "fails" under an odd number of `not`s (so that dropping it never
+ * tightens a cut), and constants are folded away.
+ */
+function relax(node: CutExpression, variable: string | undefined, negated: boolean): Relaxed {
+  switch (node.kind) {
+    case 'and':
+    case 'or': {
+      const left = relax(node.left, variable, negated);
+      const right = relax(node.right, variable, negated);
+      const absorbing = node.kind === 'or';
+      if (left === absorbing || right === absorbing) return absorbing;
+      if (typeof left === 'boolean') return right;
+      if (typeof right === 'boolean') return left;
+      return { ...node, left, right };
+    }
+    case 'not': {
+      const operand = relax(node.operand, variable, !negated);
+      return typeof operand === 'boolean' ? !operand : { ...node, operand };
+    }
+    default:
+      return node.variable === variable ? !negated : node;
+  }
+}
+
+/** An always-true (`x != NaN`) or always-false (`x == NaN`) atom, for a constant that must stay an expression. */
 function constant(variable: string, value: boolean): CutExpression {
   return { kind: 'compare', variable, op: value ? '!=' : '==', value: Number.NaN, start: 0, end: 0, variableStart: 0 };
 }
 
-function relax(node: CutExpression, variable: string, negated: boolean): CutExpression {
-  switch (node.kind) {
-    case 'or':
-    case 'and':
-      return { ...node, left: relax(node.left, variable, negated), right: relax(node.right, variable, negated) };
-    case 'not':
-      return { ...node, operand: relax(node.operand, variable, !negated) };
-    default:
-      return node.variable === variable ? constant(variable, !negated) : node;
-  }
+/** A balanced tree of `and` or `or` (shallow closures evaluate faster than a long chain). */
+function balanced(kind: 'and' | 'or', nodes: readonly CutExpression[]): CutExpression {
+  if (nodes.length === 1) return nodes[0]!;
+  const middle = nodes.length >> 1;
+  return { kind, left: balanced(kind, nodes.slice(0, middle)), right: balanced(kind, nodes.slice(middle)), start: 0, end: 0 };
 }
 
-function conjunction(nodes: readonly CutExpression[]): CutExpression {
-  return nodes.reduce((left, right) => ({ kind: 'and', left, right, start: 0, end: 0 }));
+/** The conjunction of relaxed cuts (a constant when one fails or all pass). */
+function conjunction(cuts: readonly Relaxed[]): Relaxed {
+  if (cuts.includes(false)) return false;
+  const kept = cuts.filter((c): c is CutExpression => c !== true);
+  return kept.length === 0 ? true : balanced('and', kept);
 }
 
-function cutOf(expression: CutExpression, like: Cut): Cut {
-  return { text: printExpression(expression), expression, location: like.location };
+function cutOf(expression: Relaxed, like: Cut, variable: string): Cut {
+  const e = typeof expression === 'boolean' ? constant(variable, expression) : expression;
+  return { text: printExpression(e), expression: e, location: like.location };
 }
 
 /** Variables the analysis places conditions on (steps and regions), in order of appearance. */
@@ -64,15 +92,22 @@ export function requirementVariables(analysis: Analysis): string[] {
 /** The union variant and one variant per variable, as analyses the selection engine runs. */
 export function requirementVariants(analysis: Analysis): Analysis[] {
   const first = analysis.regions[0]!;
+  const anyVariable = requirementVariables(analysis)[0] ?? 'met';
   const build = (suffix: string, variable: string | undefined): Analysis => {
-    const map = (e: CutExpression): CutExpression => (variable === undefined ? e : relax(e, variable, false));
-    const clauses = analysis.regions.map((r) => conjunction(r.cuts.map((c) => map(c.expression))));
-    const union = clauses.reduce((left, right) => ({ kind: 'or', left, right, start: 0, end: 0 }));
+    // Regions that differ only in the relaxed variable become one clause.
+    const clauses = new Map<string, CutExpression>();
+    let always = false;
+    for (const region of analysis.regions) {
+      const clause = conjunction(region.cuts.map((c) => relax(c.expression, variable, false)));
+      if (clause === true) always = true;
+      else if (clause !== false) clauses.set(printExpression(clause), clause);
+    }
+    const union: Relaxed = always ? true : clauses.size === 0 ? false : balanced('or', [...clauses.values()]);
     return {
       ...analysis,
       id: `${analysis.id}${suffix}`,
-      steps: analysis.steps.map((s) => ({ name: s.name, cut: cutOf(map(s.cut.expression), s.cut) })),
-      regions: [{ ...first, name: 'union of the signal regions', cuts: [cutOf(union, first.cuts[0]!)] }],
+      steps: analysis.steps.map((s) => ({ name: s.name, cut: cutOf(relax(s.cut.expression, variable, false), s.cut, anyVariable) })),
+      regions: [{ ...first, name: 'union of the signal regions', cuts: [cutOf(union, first.cuts[0]!, anyVariable)] }],
       regionsDisjoint: false,
       correlationGroups: [],
     };

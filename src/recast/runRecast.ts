@@ -7,7 +7,7 @@ import { resolve } from 'node:path';
 import { readTextFile } from '../io/yamlFile.js';
 import { loadAnalyses } from '../selection/loader.js';
 import type { LimitMethod, UncertaintyModel } from '../stats/index.js';
-import { recastPoint } from './recastPoint.js';
+import { RECAST_TARGET_RELATIVE_ERROR, recastPoint } from './recastPoint.js';
 import type { PointResult } from './types.js';
 import { writeRecastOutputs } from './writeRecastOutputs.js';
 
@@ -21,6 +21,8 @@ export interface RunRecastOptions {
   workers?: number;
   outFolder: string;
   cl?: number;
+  /** Relative MC error of the cross sections. @default RECAST_TARGET_RELATIVE_ERROR */
+  precision?: number;
   method?: LimitMethod;
   uncertaintyModel?: UncertaintyModel;
   /** The command line, recorded in summary.json. */
@@ -46,6 +48,7 @@ export async function runRecast(options: RunRecastOptions): Promise<{ result: Po
     seed: options.seed,
     workers: options.workers ?? defaultWorkers(),
     ...(options.cl !== undefined ? { cl: options.cl } : {}),
+    ...(options.precision !== undefined ? { targetRelativeError: options.precision } : {}),
     ...(options.method ? { method: options.method } : {}),
     ...(options.uncertaintyModel ? { uncertaintyModel: options.uncertaintyModel } : {}),
     ...(options.onProgress ? { onProgress: options.onProgress } : {}),
@@ -61,6 +64,7 @@ export async function runRecast(options: RunRecastOptions): Promise<{ result: Po
       events_per_energy: options.events,
       energies_tev: result.energies.map((e) => e.energyTeV),
       cl: result.cl,
+      cross_section_precision: options.precision ?? RECAST_TARGET_RELATIVE_ERROR,
       limit_method: options.method ?? 'auto',
       uncertainty_model: options.uncertaintyModel ?? 'lognormal',
     },

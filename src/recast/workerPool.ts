@@ -69,6 +69,12 @@ export interface TaskRun<T, R> {
   handle: (task: T) => R | Promise<R>;
   /** Called as each result arrives (progress bars, checkpoints). */
   onResult?: (index: number, result: R) => void;
+  /**
+   * Tasks with the same key share expensive per-thread state (e.g. a prepared
+   * event generator): a thread takes the next task of its last key while one
+   * remains. Results are still returned in task order.
+   */
+  affinity?: (task: T) => string;
 }
 
 /**
@@ -86,7 +92,7 @@ export async function runTasks<T, R>(run: TaskRun<T, R>): Promise<R[]> {
     }
     return results;
   }
-  return runOnWorkers(run.script(), tasks, workers, onResult);
+  return runOnWorkers(run.script(), tasks, workers, onResult, run.affinity);
 }
 
 /**
@@ -98,11 +104,34 @@ export async function runOnWorkers<T, R>(
   tasks: readonly T[],
   workers: number,
   onResult?: (index: number, result: R) => void,
+  affinity?: (task: T) => string,
 ): Promise<R[]> {
   const results = new Array<R>(tasks.length);
   if (tasks.length === 0) return results;
   const size = Math.max(1, Math.min(workers, tasks.length));
-  let nextTask = 0;
+  const keys = tasks.map((t) => (affinity ? affinity(t) : ''));
+  const pending = new Set(tasks.map((_, i) => i));
+  const lastKey = new Map<Worker, string>();
+  // Thread k starts on the k-th distinct key when there are several.
+  const distinct = [...new Set(keys)];
+  let started = 0;
+  const takeTask = (worker: Worker): number | undefined => {
+    let wanted = lastKey.get(worker);
+    if (wanted === undefined && distinct.length > 1) wanted = distinct[started++ % distinct.length];
+    let chosen: number | undefined;
+    for (const i of pending) {
+      if (wanted === undefined || keys[i] === wanted) {
+        chosen = i;
+        break;
+      }
+    }
+    if (chosen === undefined) chosen = pending.values().next().value;
+    if (chosen !== undefined) {
+      pending.delete(chosen);
+      lastKey.set(worker, keys[chosen]!);
+    }
+    return chosen;
+  };
   let failed: TamisError | undefined;
   const threads: Worker[] = [];
   await new Promise<void>((resolve, reject) => {
@@ -114,13 +143,13 @@ export async function runOnWorkers<T, R>(
       }
     };
     const feed = (worker: Worker): void => {
-      if (failed || nextTask >= tasks.length) {
+      const id = failed ? undefined : takeTask(worker);
+      if (id === undefined) {
         running--;
         void worker.terminate();
         finish();
         return;
       }
-      const id = nextTask++;
       worker.postMessage({ id, task: tasks[id] });
     };
     for (let k = 0; k < size; k++) {

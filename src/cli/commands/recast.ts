@@ -18,16 +18,18 @@ export function register(program: Command): void {
     .option('--seed <n>', 'seed of generation, detector and pseudo-experiments', '1')
     .option('--workers <n>', 'worker threads (default: one per core)')
     .option('--out <folder>', 'folder for summary.json, regions.csv, cutflow.csv and report.html', 'tamis-recast')
+    .option('--precision <e>', 'relative Monte Carlo error of each cross section', '0.01')
     .option('--cl <level>', 'confidence level of the limits', '0.95')
     .option('--method <name>', 'CLs method: exact, toys, asymptotic or auto', 'auto')
     .option('--uncertainty-model <name>', 'background uncertainty shape: lognormal or gaussian', 'lognormal')
-    .action(async (modelFile: string, options: { analyses: string; energy?: string; events: string; seed: string; workers?: string; out: string; cl: string; method: string; uncertaintyModel: string }) => {
+    .action(async (modelFile: string, options: { analyses: string; energy?: string; events: string; seed: string; workers?: string; out: string; precision: string; cl: string; method: string; uncertaintyModel: string }) => {
       const analyses = parseListOption('--analyses', options.analyses);
       const energies = options.energy === undefined ? undefined : parseNumberListOption('--energy', options.energy, { min: 0.1, max: 100 });
       const events = parseNumberOption('--events', options.events, { min: 1, max: 1e8, integer: true });
       const seed = parseNumberOption('--seed', options.seed, { min: 0, max: Number.MAX_SAFE_INTEGER, integer: true });
       const workers = options.workers === undefined ? undefined : parseNumberOption('--workers', options.workers, { min: 1, max: 256, integer: true });
       const limits = parseLimitChoices(options);
+      const precision = parseNumberOption('--precision', options.precision, { min: 1e-4, max: 0.2 });
       const { runRecast } = await import('../../recast/runRecast.js');
       const { recastTerminalTable } = await import('../../report/recastTables.js');
       const progress = progressBar('events');
@@ -39,6 +41,7 @@ export function register(program: Command): void {
         seed,
         ...(workers ? { workers } : {}),
         outFolder: options.out,
+        precision,
         ...limits,
         command: `tamis ${process.argv.slice(2).join(' ')}`,
         onProgress: (done, total) => progress.update(done, total),
