@@ -11,12 +11,11 @@ import { parseModel } from '../generator/model/loader.js';
 import type { Analysis } from '../selection/analysis.js';
 import { mergeSelectionResults, type AnalysisResult } from '../selection/results.js';
 import type { LimitMethod, UncertaintyModel } from '../stats/index.js';
-import { analysisOutcome } from './analysisOutcome.js';
-import type { LimitTask } from './limitTask.js';
+import { runLimitTask, type LimitTask } from './limitTask.js';
 import { requirementCosts, type RequirementCost } from './requirementCosts.js';
 import { groupByDetector, runChunk, sha256, type ChunkResult, type ChunkTask, type ModelSource } from './eventChunks.js';
 import type { AnalysisOutcome, EnergyCrossSection, PointResult } from './types.js';
-import { compiledModuleUrl, runTasks } from './workerPool.js';
+import { compiledModuleUrl, WorkerPool } from './workerPool.js';
 
 export interface RecastOptions {
   model: ModelSource;
@@ -74,8 +73,27 @@ export interface SelectedPoint {
   selections: { analysis: Analysis; selected: AnalysisResult; crossSectionPb: number; requirementCosts: RequirementCost[] }[];
 }
 
-/** Generates the point at each energy and runs every analysis (no limits). */
-export async function selectPoint(options: RecastOptions): Promise<SelectedPoint> {
+type RecastTask = ChunkTask | LimitTask;
+type RecastReply = ChunkResult | AnalysisOutcome;
+
+function recastPool(workers: number): WorkerPool<RecastTask, RecastReply> {
+  return new WorkerPool<RecastTask, RecastReply>({
+    workers,
+    script: () => compiledModuleUrl('recast/recastWorker.js'),
+    handle: (task) => (task.kind === 'limits' ? runLimitTask(task) : runChunk(task)),
+    // A thread keeps to one energy: it prepares that energy's generator once.
+    affinity: (task) => (task.kind === 'chunk' ? `energy ${task.energyTeV}` : `limits ${task.analysisFile}`),
+  });
+}
+
+type Selection = SelectedPoint['selections'][number];
+
+/**
+ * Submits the event chunks of every energy to `pool`; each energy's promise
+ * resolves with its cross section and merged selections once its chunks are
+ * back (merged in chunk order, whatever order they finished in).
+ */
+function submitEnergies(options: RecastOptions, pool: WorkerPool<RecastTask, RecastReply>): { modelName: string; energies: Promise<{ xs: EnergyCrossSection; selections: Selection[] }>[] } {
   // Parse here as well: model errors surface before any worker starts.
   const model = parseModel(options.model.text, options.model.file);
   const energies = energiesToRun(options.analyses, options.energies);
@@ -86,33 +104,26 @@ export async function selectPoint(options: RecastOptions): Promise<SelectedPoint
   const target = options.targetRelativeError ?? RECAST_TARGET_RELATIVE_ERROR;
   const chunksPerEnergy = Math.ceil(options.events / EVENTS_PER_CHUNK);
   const withCosts = options.requirementCosts ?? true;
-  const tasks: ChunkTask[] = [];
-  const analysesAt = energies.map((e) => options.analyses.filter((a) => Math.abs(a.energyTev - e) < 1e-9));
-  energies.forEach((energyTeV, i) => {
-    const analysisFiles = analysesAt[i]!.map((a) => resolve(a.file));
-    for (let chunk = 0; chunk < chunksPerEnergy; chunk++) {
-      tasks.push({ kind: 'chunk', model: options.model, energyTeV, events: options.events, seed: options.seed, pointId, targetRelativeError: target, analysisFiles, chunk, requirementCosts: withCosts });
-    }
-  });
+  const total = energies.length * chunksPerEnergy;
   let done = 0;
-  const chunks = await runTasks<ChunkTask, ChunkResult>({
-    tasks,
-    workers: options.workers ?? 1,
-    script: () => compiledModuleUrl('recast/recastWorker.js'),
-    handle: runChunk,
-    onResult: () => options.onProgress?.(++done, tasks.length),
-    // A thread keeps to one energy: it prepares that energy's generator once.
-    affinity: (task) => String(task.energyTeV),
-  });
-  const sigmas: EnergyCrossSection[] = [];
-  const selections = energies.flatMap((energyTeV, i) => {
-    const mine = chunks.filter((c, k) => tasks[k]!.energyTeV === energyTeV).sort((a, b) => a.chunk - b.chunk);
-    const xs = mine[0]?.crossSection;
+  const perEnergy = energies.map(async (energyTeV) => {
+    const analyses = options.analyses.filter((a) => Math.abs(a.energyTev - energyTeV) < 1e-9);
+    const analysisFiles = analyses.map((a) => resolve(a.file));
+    const replies = await Promise.all(
+      Array.from({ length: chunksPerEnergy }, (_, chunk) =>
+        pool
+          .submit({ kind: 'chunk', model: options.model, energyTeV, events: options.events, seed: options.seed, pointId, targetRelativeError: target, analysisFiles, chunk, requirementCosts: withCosts })
+          .then((reply) => {
+            options.onProgress?.(++done, total);
+            return reply as ChunkResult;
+          }),
+      ),
+    );
+    const xs = replies[0]?.crossSection;
     if (xs === undefined) throw new TamisError('internal', `no cross section came back for ${energyTeV} TeV`);
-    sigmas.push(xs);
-    return groupByDetector(analysesAt[i]!).flatMap((group, g) => {
-      const merged = mergeSelectionResults(mine.map((c) => c.groups[g]!.results));
-      const variants = withCosts ? mergeSelectionResults(mine.map((c) => c.groups[g]!.variants!)) : undefined;
+    const selections = groupByDetector(analyses).flatMap((group, g) => {
+      const merged = mergeSelectionResults(replies.map((c) => c.groups[g]!.results));
+      const variants = withCosts ? mergeSelectionResults(replies.map((c) => c.groups[g]!.variants!)) : undefined;
       const byId = new Map((variants?.analyses ?? []).map((r) => [r.id, r]));
       return group.analyses.map((analysis, a) => ({
         analysis,
@@ -121,16 +132,35 @@ export async function selectPoint(options: RecastOptions): Promise<SelectedPoint
         requirementCosts: withCosts ? requirementCosts(analysis, byId) : [],
       }));
     });
+    return { xs, selections };
   });
-  // Analyses in the order they were given.
-  const order = new Map(options.analyses.map((a, i) => [a.id, i]));
-  selections.sort((x, y) => order.get(x.analysis.id)! - order.get(y.analysis.id)!);
-  return { modelName: model.name, energies: sigmas, selections };
+  return { modelName: model.name, energies: perEnergy };
 }
 
-/** Runs one model point with limits; see the module comment. */
+/** Analyses in the order they were given. */
+function inGivenOrder<X extends { analysis: Analysis }>(options: RecastOptions, items: X[]): X[] {
+  const order = new Map(options.analyses.map((a, i) => [a.id, i]));
+  return items.sort((x, y) => order.get(x.analysis.id)! - order.get(y.analysis.id)!);
+}
+
+/** Generates the point at each energy and runs every analysis (no limits). */
+export async function selectPoint(options: RecastOptions): Promise<SelectedPoint> {
+  const pool = recastPool(options.workers ?? 1);
+  try {
+    const submitted = submitEnergies(options, pool);
+    const done = await Promise.all(submitted.energies);
+    return { modelName: submitted.modelName, energies: done.map((d) => d.xs), selections: inGivenOrder(options, done.flatMap((d) => d.selections)) };
+  } finally {
+    await pool.close();
+  }
+}
+
+/**
+ * Runs one model point with limits; see the module comment. The limits of an
+ * energy's analyses start on the same threads as soon as that energy's events
+ * are done.
+ */
 export async function recastPoint(options: RecastOptions): Promise<PointResult> {
-  const point = await selectPoint(options);
   const settings = {
     cl: options.cl ?? 0.95,
     method: options.method ?? 'auto',
@@ -139,23 +169,30 @@ export async function recastPoint(options: RecastOptions): Promise<PointResult> 
     seed: options.seed,
     pointId: [...(options.pointId ?? [])],
   };
-  // Limits per analysis, spread over the workers (pseudo-experiments are the slow part).
-  const limitTasks: LimitTask[] = point.selections.map((s) => ({ kind: 'limits', analysisFile: resolve(s.analysis.file), selected: s.selected, crossSectionPb: s.crossSectionPb, settings }));
-  const outcomes = await runTasks<LimitTask, AnalysisOutcome>({
-    tasks: limitTasks,
-    workers: options.workers ?? 1,
-    script: () => compiledModuleUrl('recast/recastWorker.js'),
-    handle: (task) => {
-      const s = point.selections.find((x) => resolve(x.analysis.file) === task.analysisFile && x.selected === task.selected)!;
-      return analysisOutcome(s.analysis, s.selected, s.crossSectionPb, settings);
-    },
-  });
-  return {
-    model: { name: point.modelName, file: options.model.file, sha256: sha256(options.model.text), parameters: { ...(options.parameters ?? {}) } },
-    seed: options.seed,
-    eventsPerEnergy: options.events,
-    cl: settings.cl,
-    energies: point.energies,
-    analyses: outcomes.map((o, i) => ({ ...o, requirementCosts: point.selections[i]!.requirementCosts })),
-  };
+  const pool = recastPool(options.workers ?? 1);
+  try {
+    const submitted = submitEnergies(options, pool);
+    const perEnergy = await Promise.all(
+      submitted.energies.map(async (energy) => {
+        const { xs, selections } = await energy;
+        const outcomes = await Promise.all(
+          selections.map(async (s) => {
+            const outcome = (await pool.submit({ kind: 'limits', analysisFile: resolve(s.analysis.file), selected: s.selected, crossSectionPb: s.crossSectionPb, settings })) as AnalysisOutcome;
+            return { analysis: s.analysis, outcome: { ...outcome, requirementCosts: s.requirementCosts } };
+          }),
+        );
+        return { xs, outcomes };
+      }),
+    );
+    return {
+      model: { name: submitted.modelName, file: options.model.file, sha256: sha256(options.model.text), parameters: { ...(options.parameters ?? {}) } },
+      seed: options.seed,
+      eventsPerEnergy: options.events,
+      cl: settings.cl,
+      energies: perEnergy.map((e) => e.xs),
+      analyses: inGivenOrder(options, perEnergy.flatMap((e) => e.outcomes)).map((x) => x.outcome),
+    };
+  } finally {
+    await pool.close();
+  }
 }

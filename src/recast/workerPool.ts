@@ -59,22 +59,116 @@ export function compiledModuleUrl(pathFromSrc: string): URL {
   return pathToFileURL(compiled);
 }
 
-export interface TaskRun<T, R> {
-  tasks: readonly T[];
+export interface PoolOptions<T, R> {
   /** Number of worker threads; 1 runs every task in this thread with `handle`. */
   workers: number;
   /** Compiled module that calls `serveTasks(handle)` with the same handler. */
   script: () => URL;
   /** The task handler, used directly when `workers` is 1. */
   handle: (task: T) => R | Promise<R>;
-  /** Called as each result arrives (progress bars, checkpoints). */
-  onResult?: (index: number, result: R) => void;
   /**
    * Tasks with the same key share expensive per-thread state (e.g. a prepared
-   * event generator): a thread takes the next task of its last key while one
-   * remains. Results are still returned in task order.
+   * event generator): an idle thread takes the oldest task of its last key
+   * while one is queued, else the oldest task.
    */
   affinity?: (task: T) => string;
+}
+
+interface Queued<T, R> {
+  task: T;
+  key: string;
+  resolve: (result: R) => void;
+  reject: (error: unknown) => void;
+}
+
+/**
+ * A pool of worker threads that takes tasks as they come (`submit`), so later
+ * tasks can depend on earlier results; each result comes back through its own
+ * promise. Threads start on the first submission and stop at `close()`.
+ */
+export class WorkerPool<T, R> {
+  private readonly options: PoolOptions<T, R>;
+  private readonly queue: Queued<T, R>[] = [];
+  private readonly idle: Worker[] = [];
+  private readonly threads: Worker[] = [];
+  private readonly lastKey = new Map<Worker, string>();
+  private readonly running = new Map<Worker, Queued<T, R>>();
+  private failure: TamisError | undefined;
+  private nextId = 0;
+
+  constructor(options: PoolOptions<T, R>) {
+    this.options = options;
+  }
+
+  /** Runs a task; resolves with its result, rejects with its error (or the pool's first failure). */
+  submit(task: T): Promise<R> {
+    if (this.failure) return Promise.reject(this.failure);
+    if (this.options.workers <= 1) return Promise.resolve().then(() => this.options.handle(task));
+    return new Promise<R>((resolve, reject) => {
+      this.queue.push({ task, key: this.options.affinity?.(task) ?? '', resolve, reject });
+      if (this.threads.length < this.options.workers) this.spawn();
+      this.dispatch();
+    });
+  }
+
+  /** Stops every thread. Tasks still queued are rejected. */
+  async close(): Promise<void> {
+    for (const q of this.queue.splice(0)) q.reject(new TamisError('internal', 'worker pool closed'));
+    await Promise.all(this.threads.map((t) => t.terminate()));
+    this.threads.length = 0;
+    this.idle.length = 0;
+  }
+
+  private spawn(): void {
+    const worker = new Worker(this.options.script());
+    this.threads.push(worker);
+    worker.on('message', (reply: WorkerReply<R>) => {
+      const job = this.running.get(worker);
+      this.running.delete(worker);
+      if (job) {
+        if ('error' in reply) this.fail(deserialiseError(reply.error), job);
+        else job.resolve(reply.result);
+      }
+      this.idle.push(worker);
+      this.dispatch();
+    });
+    worker.on('error', (error) => {
+      const job = this.running.get(worker);
+      this.running.delete(worker);
+      this.fail(new TamisError('internal', `worker thread failed: ${error.message}`), job);
+    });
+    this.idle.push(worker);
+  }
+
+  private fail(error: TamisError, job: Queued<T, R> | undefined): void {
+    this.failure ??= error;
+    job?.reject(error);
+    for (const q of this.queue.splice(0)) q.reject(this.failure);
+  }
+
+  private dispatch(): void {
+    while (this.idle.length > 0 && this.queue.length > 0) {
+      const worker = this.idle.shift()!;
+      const wanted = this.lastKey.get(worker);
+      let index = wanted === undefined ? -1 : this.queue.findIndex((q) => q.key === wanted);
+      if (index < 0 && wanted === undefined) {
+        // A fresh thread takes the oldest key no running thread works on, when there is one.
+        const busy = new Set([...this.running.values()].map((q) => q.key));
+        index = this.queue.findIndex((q) => !busy.has(q.key));
+      }
+      if (index < 0) index = 0;
+      const job = this.queue.splice(index, 1)[0]!;
+      this.lastKey.set(worker, job.key);
+      this.running.set(worker, job);
+      worker.postMessage({ id: this.nextId++, task: job.task });
+    }
+  }
+}
+
+export interface TaskRun<T, R> extends PoolOptions<T, R> {
+  tasks: readonly T[];
+  /** Called as each result arrives (progress bars, checkpoints). */
+  onResult?: (index: number, result: R) => void;
 }
 
 /**
@@ -82,8 +176,8 @@ export interface TaskRun<T, R> {
  * returns the results in task order.
  */
 export async function runTasks<T, R>(run: TaskRun<T, R>): Promise<R[]> {
-  const { tasks, workers, onResult } = run;
-  if (workers <= 1 || tasks.length <= 1) {
+  const { tasks, onResult } = run;
+  if (run.workers <= 1 || tasks.length <= 1) {
     const results: R[] = [];
     for (let i = 0; i < tasks.length; i++) {
       const result = await run.handle(tasks[i]!);
@@ -92,87 +186,17 @@ export async function runTasks<T, R>(run: TaskRun<T, R>): Promise<R[]> {
     }
     return results;
   }
-  return runOnWorkers(run.script(), tasks, workers, onResult, run.affinity);
-}
-
-/**
- * Runs `tasks` on up to `workers` threads of `script` (a module that calls
- * `serveTasks`), returning results in task order.
- */
-export async function runOnWorkers<T, R>(
-  script: URL,
-  tasks: readonly T[],
-  workers: number,
-  onResult?: (index: number, result: R) => void,
-  affinity?: (task: T) => string,
-): Promise<R[]> {
-  const results = new Array<R>(tasks.length);
-  if (tasks.length === 0) return results;
-  const size = Math.max(1, Math.min(workers, tasks.length));
-  const keys = tasks.map((t) => (affinity ? affinity(t) : ''));
-  const pending = new Set(tasks.map((_, i) => i));
-  const lastKey = new Map<Worker, string>();
-  // Thread k starts on the k-th distinct key when there are several.
-  const distinct = [...new Set(keys)];
-  let started = 0;
-  const takeTask = (worker: Worker): number | undefined => {
-    let wanted = lastKey.get(worker);
-    if (wanted === undefined && distinct.length > 1) wanted = distinct[started++ % distinct.length];
-    let chosen: number | undefined;
-    for (const i of pending) {
-      if (wanted === undefined || keys[i] === wanted) {
-        chosen = i;
-        break;
-      }
-    }
-    if (chosen === undefined) chosen = pending.values().next().value;
-    if (chosen !== undefined) {
-      pending.delete(chosen);
-      lastKey.set(worker, keys[chosen]!);
-    }
-    return chosen;
-  };
-  let failed: TamisError | undefined;
-  const threads: Worker[] = [];
-  await new Promise<void>((resolve, reject) => {
-    let running = 0;
-    const finish = (): void => {
-      if (running === 0) {
-        if (failed) reject(failed);
-        else resolve();
-      }
-    };
-    const feed = (worker: Worker): void => {
-      const id = failed ? undefined : takeTask(worker);
-      if (id === undefined) {
-        running--;
-        void worker.terminate();
-        finish();
-        return;
-      }
-      worker.postMessage({ id, task: tasks[id] });
-    };
-    for (let k = 0; k < size; k++) {
-      const worker = new Worker(script);
-      threads.push(worker);
-      running++;
-      worker.on('message', (reply: WorkerReply<R>) => {
-        if ('error' in reply) failed ??= deserialiseError(reply.error);
-        else {
-          results[reply.id] = reply.result;
-          onResult?.(reply.id, reply.result);
-        }
-        feed(worker);
-      });
-      worker.on('error', (error) => {
-        failed ??= new TamisError('internal', `worker thread failed: ${error.message}`);
-        running--;
-        finish();
-      });
-      feed(worker);
-    }
-  }).finally(() => {
-    for (const t of threads) void t.terminate();
-  });
-  return results;
+  const pool = new WorkerPool<T, R>({ ...run, workers: Math.min(run.workers, tasks.length) });
+  try {
+    return await Promise.all(
+      tasks.map((task, i) =>
+        pool.submit(task).then((result) => {
+          onResult?.(i, result);
+          return result;
+        }),
+      ),
+    );
+  } finally {
+    await pool.close();
+  }
 }
