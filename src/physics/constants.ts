@@ -5,7 +5,7 @@
  * Particle Physics 2024 (S. Navas et al., Phys. Rev. D 110 (2024) 030001),
  * "PDG 2024" below. Each value says how it was obtained, as in
  * ../shared/checks.md of the project brief: "checked" = compared with a
- * transcription of the primary source; "from memory" = recalled, not yet
+ * faithful copy of the primary source; "from memory" = recalled, not yet
  * verified against a primary source. Units: GeV, GeV^-2, pb.
  */
 
@@ -26,7 +26,7 @@ export const M_TOP = 172.57;
 export const GAMMA_TOP = 1.42;
 /** Higgs boson mass (PDG 2024; checked). */
 export const M_H = 125.2;
-/** Higgs total width, Standard-Model prediction at 125 GeV (LHC Higgs cross-section working group, Yellow Report 4, arXiv:1610.07922; from memory). */
+/** Higgs total width, Standard-Model prediction at 125 GeV (Higgs cross-section working group, Yellow Report 4, arXiv:1610.07922; from memory). */
 export const GAMMA_H = 4.1e-3;
 /** Tau lepton mass (PDG 2024; checked). */
 export const M_TAU = 1.77693;
@@ -57,7 +57,7 @@ export const ALPHA_EM_0 = 1 / 137.035999177;
 export const ALPHA_EM_MZ = 1 / 127.93;
 /**
  * sin^2 theta_W in the MSbar scheme at M_Z = 0.23129 (PDG 2024, electroweak review; checked —
- * another transcription gives 0.23122, and 0.23129 is the one used here).
+ * another copy of the table gives 0.23122, and 0.23129 is the one used here).
  */
 export const SIN2_THETA_W = 0.23129;
 /** Strong coupling alpha_s(M_Z) (PDG 2024 world average; checked). */
@@ -115,8 +115,8 @@ export const BR_TAU_HADRONIC = {
 } as const;
 
 /**
- * Branching fractions of a 125.00 GeV Higgs boson (LHC Higgs cross-section working
- * group, Yellow Report 4, CERN-2017-002, arXiv:1610.07922; checked). They sum to 0.99977;
+ * Branching fractions of a 125.00 GeV Higgs boson (Higgs cross-section working
+ * group, Yellow Report 4, arXiv:1610.07922; checked). They sum to 0.99977;
  * the remainder (s sbar and lighter modes) is not generated.
  */
 export const BR_H = {

@@ -5,7 +5,7 @@ import { expectClose } from '../helpers.js';
 
 /**
  * Les Houches LO evolution benchmark, variable flavour number, mu_F^2 = mu_R^2 = 10^4 GeV^2:
- * W. Giele et al., hep-ph/0204316, section 1.3, Table 2, as transcribed in ../shared/checks.md
+ * W. Giele et al., hep-ph/0204316, section 1.3, Table 2, as copied in ../shared/checks.md
  * section 1 ([S]; an independent Mellin evolution reproduces it within rounding, [C]).
  * Columns: x, x u_v, x d_v, x L-, x L+, x s+, x c+, x b+, x g.
  */

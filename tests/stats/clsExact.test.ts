@@ -6,7 +6,7 @@ import { expectClose } from '../helpers.js';
 
 // PDG Review of Particle Physics, Statistics review, table of one-sided upper
 // limits for a Poisson mean with no background (e.g. Table 40.3 in the
-// 2020-2024 editions), as transcribed in ../shared/checks.md section 2:
+// 2020-2024 editions), as copied in ../shared/checks.md section 2:
 // 95% column [S][C]; 90% column [C] (printed values from memory).
 const PDG_95 = [3.0, 4.74, 6.3, 7.75, 9.15, 10.51, 11.84, 13.15, 14.43, 15.71, 16.96];
 const PDG_90 = [2.3, 3.89, 5.32, 6.68, 7.99, 9.27, 10.53, 11.77, 12.99, 14.21, 15.41];
