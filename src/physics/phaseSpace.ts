@@ -154,6 +154,34 @@ export function dalitzLimits(
 const limitsScratch = new Float64Array(2);
 
 /**
+ * The rest-frame kinematics of a three-body decay at the Dalitz point
+ * (m12^2, m23^2): writes E1, |p1|, E3, |p3| and cos(theta_13) to out[0..4]
+ * (E1 = (M^2 + m1^2 - m23^2) / 2M, E3 = (M^2 + m3^2 - m12^2) / 2M and
+ * m13^2 = m1^2 + m3^2 + 2 (E1 E3 - p1 p3 cos13); PDG Review, "Kinematics",
+ * three-body decays). Returns false, writing nothing, outside the Dalitz region.
+ */
+export function dalitzKinematics(parentMass: number, m1: number, m2: number, m3: number, m12sq: number, m23sq: number, out: Float64Array): boolean {
+  if (m12sq < (m1 + m2) ** 2 || m12sq > (parentMass - m3) ** 2) return false;
+  dalitzLimits(parentMass, m1, m2, m3, m12sq, limitsScratch);
+  if (m23sq < limitsScratch[0] || m23sq > limitsScratch[1]) return false;
+  const bigM2 = parentMass * parentMass;
+  const m13sq = bigM2 + m1 * m1 + m2 * m2 + m3 * m3 - m12sq - m23sq;
+  const e1 = (bigM2 + m1 * m1 - m23sq) / (2 * parentMass);
+  const e3 = (bigM2 + m3 * m3 - m12sq) / (2 * parentMass);
+  const p1 = Math.sqrt(Math.max(0, e1 * e1 - m1 * m1));
+  const p3 = Math.sqrt(Math.max(0, e3 * e3 - m3 * m3));
+  const cos13 = p1 > 0 && p3 > 0 ? (2 * e1 * e3 + m1 * m1 + m3 * m3 - m13sq) / (2 * p1 * p3) : 1;
+  out[0] = e1;
+  out[1] = p1;
+  out[2] = e3;
+  out[3] = p3;
+  out[4] = cos13 < -1 ? -1 : cos13 > 1 ? 1 : cos13;
+  return true;
+}
+
+const kinematicsScratch = new Float64Array(5);
+
+/**
  * Builds a three-body decay of vector `ip` of `parent` from the Dalitz
  * variables (m12^2, m23^2), oriented uniformly at random, and boosts it to the
  * parent's frame. Returns false (writing nothing) if the point lies outside
@@ -180,18 +208,13 @@ export function threeBodyFromDalitz(
   const e = parent[o + 3];
   const bigM2 = e * e - px * px - py * py - pz * pz;
   const bigM = Math.sqrt(bigM2 > 0 ? bigM2 : 0);
-  if (m12sq < (m1 + m2) ** 2 || m12sq > (bigM - m3) ** 2) return false;
-  dalitzLimits(bigM, m1, m2, m3, m12sq, limitsScratch);
-  if (m23sq < limitsScratch[0] || m23sq > limitsScratch[1]) return false;
-  const m13sq = bigM2 + m1 * m1 + m2 * m2 + m3 * m3 - m12sq - m23sq;
-  // Energies in the parent rest frame.
-  const e1 = (bigM2 + m1 * m1 - m23sq) / (2 * bigM);
-  const e3 = (bigM2 + m3 * m3 - m12sq) / (2 * bigM);
-  const p1 = Math.sqrt(Math.max(0, e1 * e1 - m1 * m1));
-  const p3 = Math.sqrt(Math.max(0, e3 * e3 - m3 * m3));
-  // m13^2 = m1^2 + m3^2 + 2 (E1 E3 - p1 p3 cos13)
-  let cos13 = p1 > 0 && p3 > 0 ? (2 * e1 * e3 + m1 * m1 + m3 * m3 - m13sq) / (2 * p1 * p3) : 1;
-  cos13 = Math.min(1, Math.max(-1, cos13));
+  const k = kinematicsScratch;
+  if (!dalitzKinematics(bigM, m1, m2, m3, m12sq, m23sq, k)) return false;
+  const e1 = k[0];
+  const p1 = k[1];
+  const e3 = k[2];
+  const p3 = k[3];
+  const cos13 = k[4];
   const sin13 = Math.sqrt(1 - cos13 * cos13);
   // Particle 3 along z, particle 1 in the x-z plane, particle 2 balances.
   const a = 4 * i1;

@@ -13,7 +13,7 @@
  * machine precision: the rest-frame daughters summing to (M, 0) are boosted to
  * exactly (E, P).
  */
-import { dalitzLimits } from '../../physics/phaseSpace.js';
+import { dalitzKinematics } from '../../physics/phaseSpace.js';
 import type { RandomStream } from '../../physics/random.js';
 
 /**
@@ -77,7 +77,7 @@ export function twoBodyAtRest(out: Float64Array, i1: number, i2: number, parentM
   out[o2 + 3] = (M2 - a + b) / (2 * parentMass);
 }
 
-const limits = new Float64Array(2);
+const kinematics = new Float64Array(5);
 
 /**
  * Three-body decay of a parent at rest with mass `parentMass` from the
@@ -101,19 +101,12 @@ export function threeBodyAtRest(
   m23sq: number,
   rng: RandomStream,
 ): boolean {
-  const M2 = parentMass * parentMass;
-  if (m12sq < (m1 + m2) ** 2 || m12sq > (parentMass - m3) ** 2) return false;
-  dalitzLimits(parentMass, m1, m2, m3, m12sq, limits);
-  if (m23sq < limits[0]! || m23sq > limits[1]!) return false;
-  const m13sq = M2 + m1 * m1 + m2 * m2 + m3 * m3 - m12sq - m23sq;
-  // Energies in the parent rest frame: E1 = (M^2 + m1^2 - m23^2) / 2M, E3 = (M^2 + m3^2 - m12^2) / 2M.
-  const e1 = (M2 + m1 * m1 - m23sq) / (2 * parentMass);
-  const e3 = (M2 + m3 * m3 - m12sq) / (2 * parentMass);
-  const p1 = Math.sqrt(Math.max(0, e1 * e1 - m1 * m1));
-  const p3 = Math.sqrt(Math.max(0, e3 * e3 - m3 * m3));
-  // m13^2 = m1^2 + m3^2 + 2 (E1 E3 - p1 p3 cos13)
-  let cos13 = p1 > 0 && p3 > 0 ? (2 * e1 * e3 + m1 * m1 + m3 * m3 - m13sq) / (2 * p1 * p3) : 1;
-  cos13 = cos13 < -1 ? -1 : cos13 > 1 ? 1 : cos13;
+  if (!dalitzKinematics(parentMass, m1, m2, m3, m12sq, m23sq, kinematics)) return false;
+  const e1 = kinematics[0]!;
+  const p1 = kinematics[1]!;
+  const e3 = kinematics[2]!;
+  const p3 = kinematics[3]!;
+  const cos13 = kinematics[4]!;
   const sin13 = Math.sqrt(1 - cos13 * cos13);
   // Direction n of particle 3, uniform on the sphere; (a, b) completes an orthonormal basis.
   const cz = 2 * rng.uniform() - 1;
