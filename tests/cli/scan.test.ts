@@ -99,3 +99,14 @@ describe('tamis scan (end to end)', () => {
     expect(existsSync(join(folder, 'bad'))).toBe(false);
   });
 });
+
+describe('scan files that set one value twice', () => {
+  it('are refused with the key of the second setting', () => {
+    const bad = join(folder, 'twice.scan.yaml');
+    const text = readFileSync(SCAN, 'utf8').replace(/\.\.\/\.\.\//g, `${ROOT}/`).replace('set: [resonances.V0.mass, resonances.V+.mass]', 'set: [resonances.V0.mass, particles.S+.mass]');
+    writeFileSync(bad, text);
+    const run = tamis(folder, 'check', bad);
+    expect(run.status).toBe(1);
+    expect(run.stderr).toMatch(/twice\.scan\.yaml:\d+:\d+: derived\[0\]\.set\[1\]: particles\.S\+\.mass is set twice/);
+  });
+});

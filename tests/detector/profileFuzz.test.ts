@@ -16,73 +16,9 @@ import { TamisError } from '../../src/errors.js';
 import { EventRecord, STATUS_DECAYED, STATUS_FINAL } from '../../src/generator/eventRecord.js';
 import { RandomStream } from '../../src/physics/random.js';
 import { addBeams, addHadronicTau, addParticle, zToLeptons } from './eventBuilders.js';
+import { mutateYaml } from '../fuzzMutations.js';
 
 const MUTATIONS_PER_FILE = 1000;
-
-const HUGE_NUMBERS = ['1e308', '1e400', '-1e300', '123456789012345678901234567890', '.inf', '-.inf', '.nan', '0x7fffffff', '1e-320', '-0'];
-const WRONG_TYPES = ['abc', '[1, 2]', '{a: 1}', '~', 'true', '""', '[[0.5]]', '- x', '&a 1', '*a', '!!binary AAAA'];
-
-function randomLine(lines: string[], rng: RandomStream): number {
-  return rng.integerBelow(lines.length);
-}
-
-/** One random mutation of `text`. */
-function mutate(text: string, rng: RandomStream): string {
-  const lines = text.split('\n');
-  switch (rng.integerBelow(9)) {
-    case 0: // delete a line
-      lines.splice(randomLine(lines, rng), 1);
-      return lines.join('\n');
-    case 1: {
-      // swap two lines
-      const a = randomLine(lines, rng);
-      const b = randomLine(lines, rng);
-      [lines[a], lines[b]] = [lines[b]!, lines[a]!];
-      return lines.join('\n');
-    }
-    case 2: // truncate
-      return text.slice(0, rng.integerBelow(text.length));
-    case 3: {
-      // garbage bytes (any code unit, control characters and lone surrogates included)
-      const at = rng.integerBelow(text.length);
-      let garbage = '';
-      const n = 1 + rng.integerBelow(8);
-      for (let k = 0; k < n; k++) garbage += String.fromCharCode(rng.integerBelow(65536));
-      return text.slice(0, at) + garbage + text.slice(at);
-    }
-    case 4:
-    case 5: {
-      // a number replaced by a huge or odd number, or by a value of another type
-      const numbers = [...text.matchAll(/-?\d+(\.\d+)?(e-?\d+)?/g)];
-      if (numbers.length === 0) return text;
-      const m = numbers[rng.integerBelow(numbers.length)]!;
-      const pool = rng.integerBelow(2) === 0 ? HUGE_NUMBERS : WRONG_TYPES;
-      const replacement = pool[rng.integerBelow(pool.length)]!;
-      return text.slice(0, m.index) + replacement + text.slice(m.index! + m[0].length);
-    }
-    case 6: {
-      // re-indent a line
-      const i = randomLine(lines, rng);
-      lines[i] = rng.integerBelow(2) === 0 ? ` ${lines[i]}` : lines[i]!.replace(/^ {1,2}/, '');
-      return lines.join('\n');
-    }
-    case 7: {
-      // duplicate a line
-      const i = randomLine(lines, rng);
-      lines.splice(i, 0, lines[i]!);
-      return lines.join('\n');
-    }
-    default: {
-      // a flow list loses or gains an entry
-      const lists = [...text.matchAll(/\[[^\[\]\n]*\]/g)];
-      if (lists.length === 0) return text;
-      const m = lists[rng.integerBelow(lists.length)]!;
-      const inner = m[0].slice(1, -1);
-      const changed = rng.integerBelow(2) === 0 ? inner.replace(/,[^,]*$/, '') : `${inner}, ${inner.split(',')[0]}`;
-      return text.slice(0, m.index) + `[${changed}]` + text.slice(m.index! + m[0].length);
-    }
-  }
-}
 
 /** A busy test event: Z -> e e, a b quark, a light quark, a hadronic tau, a muon and a neutrino. */
 function busyEvent(): EventRecord {
@@ -107,9 +43,7 @@ describe.each(builtInDetectorProfileNames())('fuzzing the %s profile through the
     let valid = 0;
     let rejected = 0;
     for (let k = 0; k < MUTATIONS_PER_FILE; k++) {
-      let mutated = mutate(text, rng);
-      const extra = rng.integerBelow(3);
-      for (let x = 0; x < extra; x++) mutated = mutate(mutated, rng);
+      const mutated = mutateYaml(text, rng);
       let profile;
       try {
         profile = parseDetectorProfile(mutated, 'fuzz.yaml');

@@ -7,7 +7,7 @@
 import { dirname, resolve } from 'node:path';
 import { TamisError } from '../../errors.js';
 import { parseModel } from '../../generator/model/loader.js';
-import { readTextFile, readYamlFile, type YamlSource } from '../../io/yamlFile.js';
+import { parseYamlText, readTextFile, type YamlSource } from '../../io/yamlFile.js';
 import type { Analysis } from '../../selection/analysis.js';
 import { loadAnalyses } from '../../selection/loader.js';
 import { VERSION } from '../../version.js';
@@ -59,7 +59,12 @@ function axisValues(source: YamlSource<ScanFile>, i: number): number[] {
 
 /** Reads and checks a scan file and builds every point's model text. */
 export function loadScan(file: string): Scan {
-  const source = readYamlFile(file, ScanFileSchema);
+  return parseScan(readTextFile(file), file);
+}
+
+/** Checks a scan file's text (`file` locates relative paths and names the file in errors). */
+export function parseScan(text: string, file: string): Scan {
+  const source = parseYamlText(text, file, ScanFileSchema);
   const scan = source.data;
   const folder = dirname(file);
   const modelFile = resolve(folder, scan.model);
@@ -108,6 +113,20 @@ export function loadScan(file: string): Scan {
     }
     return { formula, paths: d.set.map((p, j) => pathAt(['derived', i, 'set', j], p)) };
   });
+  // A value set twice, or inside another value the scan sets, has no single meaning.
+  const allPaths = [
+    ...axisPaths.flatMap((paths, i) => paths.map((path, j) => ({ path, text: scan.parameters[i]!.set[j]!, at: ['parameters', i, 'set', j] as (string | number)[] }))),
+    ...formulas.flatMap((f, i) => f.paths.map((path, j) => ({ path, text: scan.derived[i]!.set[j]!, at: ['derived', i, 'set', j] as (string | number)[] }))),
+  ];
+  for (const [a, first] of allPaths.entries()) {
+    for (const second of allPaths.slice(a + 1)) {
+      const [short, long] = first.path.length <= second.path.length ? [first, second] : [second, first];
+      if (short.path.every((p, k) => long.path[k] === p)) {
+        const what = short.path.length === long.path.length ? `${second.text} is set twice` : `${long.text} lies inside ${short.text}, which the scan also sets`;
+        throw new TamisError('schema', what, source.locate(second.at));
+      }
+    }
+  }
   const points: ScanPoint[] = [];
   const grid = axes.length === 1 ? axes[0]!.values.map((v) => [v]) : axes[0]!.values.flatMap((v) => axes[1]!.values.map((w) => [v, w]));
   for (const [index, values] of grid.entries()) {
@@ -142,7 +161,7 @@ export function loadScan(file: string): Scan {
   const fingerprint = sha256(
     JSON.stringify({
       version: VERSION,
-      scan: readTextFile(file),
+      scan: text,
       model: modelText,
       analyses: analyses.map((a) => [a.id, readTextFile(a.file), readTextFile(a.detectorFile)]),
     }),

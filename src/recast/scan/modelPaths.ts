@@ -41,6 +41,7 @@ export function resolveModelPath(doc: Document, path: string): ConcretePath {
       concrete.push(part);
       node = node.get(part, true);
     } else if (isSeq(node)) {
+      if (last) throw new TamisError('bad_input', `a path must end at a key of the model, not at a whole list entry (${path})`);
       const names = node.items.map(entryName);
       let index = names.indexOf(part);
       if (index < 0 && /^\d+$/.test(part)) index = Number(part);
