@@ -9,7 +9,7 @@
  * point at the right line.
  */
 import { readFileSync } from 'node:fs';
-import { LineCounter, isMap, isScalar, parseDocument, type Document, type Node } from 'yaml';
+import { LineCounter, isMap, isScalar, parseDocument, visit, type Document, type Node } from 'yaml';
 import type { z } from 'zod';
 import { TamisError, type SourceLocation } from '../errors.js';
 
@@ -79,7 +79,7 @@ export function parseYamlText<S extends z.ZodType>(text: string, file: string, s
     // maxAliasCount guards against alias bombs ("billion laughs").
     raw = doc.toJS({ maxAliasCount: 100 });
   } catch (error) {
-    throw new TamisError('schema', `not valid YAML: ${(error as Error).message}`, { file });
+    throw new TamisError('schema', `not valid YAML: ${yamlMessage((error as Error).message)}`, { file, ...aliasLocation(doc, lineCounter) });
   }
   const locate = (path: KeyPath, offset?: number): SourceLocation => locateInDocument(doc, lineCounter, file, path, offset);
   if (raw === null || raw === undefined) {
@@ -99,6 +99,22 @@ export function parseYamlText<S extends z.ZodType>(text: string, file: string, s
 function yamlMessage(message: string): string {
   const firstLine = message.split('\n')[0] ?? message;
   return firstLine.replace(/ at line \d+, column \d+.*$/, '').replace(/^./, (c) => c.toLowerCase());
+}
+
+/** Where the first alias that points to no anchor is (the usual reason `toJS` fails). */
+function aliasLocation(doc: Document, lineCounter: LineCounter): { line?: number; column?: number } {
+  let found: { line?: number; column?: number } = {};
+  visit(doc, {
+    Alias(_key, node) {
+      if (node.resolve(doc) === undefined && node.range) {
+        const pos = lineCounter.linePos(node.range[0]);
+        found = { line: pos.line, column: pos.col };
+        return visit.BREAK;
+      }
+      return undefined;
+    },
+  });
+  return found;
 }
 
 function lineOfOffset(text: string, offset: number): number {

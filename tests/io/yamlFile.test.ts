@@ -99,3 +99,17 @@ describe('reporting of typical mistakes', () => {
     expect(() => parseYamlText('id: x\nregions:\n  - {name: a, observed: 1, background: .inf}\n', 'a.yaml', File)).toThrow(/expected a finite number, got Infinity/);
   });
 });
+
+describe('aliases', () => {
+  it('an alias to no anchor is reported at its line and column', () => {
+    try {
+      parseYamlText('id: x\nregions:\n  - {name: a, observed: *nothing, background: 1}\n', 'a.yaml', File);
+      expect.fail('expected an error');
+    } catch (error) {
+      const e = error as TamisError;
+      expect(e.message).toMatch(/not valid YAML/);
+      expect(e.line).toBe(3);
+      expect(e.column).toBe(25); // the "*" of *nothing
+    }
+  });
+});
