@@ -18,7 +18,6 @@ export const COMPARISON_CSV_COLUMNS = ['energy_tev', 'analysis', 'region', 'effi
 /** Regions listed per analysis in the terminal (the most efficient first). */
 const REGIONS_PRINTED = 6;
 
-const describeRequirement = (c: { variable: string }): string => `any condition on ${c.variable}`;
 
 export function comparisonText(c: EnergyComparison): string {
   const head = `${c.modelName}: ${c.energies.map((e) => `${e.energyTeV} TeV ${formatNumber(e.sigmaPb, 4)} pb`).join(', ')}; ${c.events} events per energy, seed ${c.seed}`;
@@ -82,9 +81,9 @@ function efficiencyBarsSpec(c: EnergyComparison): TopLevelSpec {
 
 export async function comparisonHtml(c: EnergyComparison, command: string): Promise<string> {
   const rows = [...c.analyses].sort((a, b) => a.energyTeV - b.energyTeV).map((a) => [a.id, String(a.energyTeV), formatNumber(a.signalRegionEfficiency.value, 3), formatNumber(a.signalEvents, 3), a.requirementCosts[0]?.variable ?? '-', a.requirementCosts[0] ? formatNumber(a.requirementCosts[0].gainFactor, 3) : '-']);
-  const bars = c.analyses.flatMap((a) => a.requirementCosts.filter((x) => Number.isFinite(x.gainFactor) && x.gainFactor > 1).slice(0, 4).map((x) => ({ analysis: `${a.id} (${a.energyTeV} TeV)`, cut: describeRequirement(x), gainFactor: x.gainFactor })));
+  const bars = c.analyses.flatMap((a) => a.requirementCosts.filter((x) => Number.isFinite(x.gainFactor) && x.gainFactor > 1).slice(0, 4).map((x) => ({ analysis: `${a.id} (${a.energyTeV} TeV)`, cut: x.variable, gainFactor: x.gainFactor })));
   const figures = [htmlFigure(await renderVegaLiteSvg(efficiencyBarsSpec(c)), 'Efficiency of each analysis\u2019s signal regions for the same model at each collider energy.', 'efficiency-bars')];
-  if (bars.length) figures.push(htmlFigure(await renderVegaLiteSvg(cutBlamePlotSpec(bars, { title: 'signal-region efficiency without a requirement / with all' })), 'The requirements that cost each analysis the most signal: efficiency of its signal regions with no condition on one variable, relative to all conditions.', 'cut-costs'));
+  if (bars.length) figures.push(htmlFigure(await renderVegaLiteSvg(cutBlamePlotSpec(bars, { title: 'signal kept with no condition on one variable', axisTitle: 'efficiency of the signal regions with no condition on the variable / with all' })), 'The requirements that cost each analysis the most signal: efficiency of its signal regions with no condition on one variable, relative to all conditions.', 'cut-costs'));
   return htmlPage({
     title: `tamis energy comparison of ${c.modelName}`,
     lead: `The same model through the analyses at ${c.energies.map((e) => `${e.energyTeV} TeV`).join(' and ')}: efficiencies and the cuts that cost the signal.`,

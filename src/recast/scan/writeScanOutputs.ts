@@ -99,7 +99,7 @@ export async function writeScanOutputs(folder: string, scan: ScanDescription, po
     const second = scan.axes[1]!;
     plotSvg.push(['reach.svg', await renderVegaLiteSvg(reachPlotSpec(reach.map((r) => ({ analysis: label(r), parameter: r.second!, observed: r.observed.limit, expected: r.expected.limit })), { parameter: `${second.name} [${second.unit}]`, mass: `${axis.name} limit [${axis.unit}]` })), 'Observed and expected mass limits against the second scan parameter.']);
   }
-  plotSvg.push(['efficiency.svg', await renderVegaLiteSvg(efficiencyPlotSpec(efficiencyPoints, { massLabel, title: 'signal efficiency in the signal regions' })), 'Signal efficiency in the signal regions (their union when disjoint, else the best region) against mass: solid and dashed lines for the two collider energies.']);
+  plotSvg.push(['efficiency.svg', await renderVegaLiteSvg(efficiencyPlotSpec(efficiencyPoints, { massLabel, title: 'signal efficiency in the signal regions' })), 'Signal efficiency in the signal regions (their union when disjoint, else the best region) against mass, per analysis and collider energy (one dash pattern per energy).']);
   const blame = scanCutBlame(firstSlice, axis);
   if (blame.length > 0) plotSvg.push(['cut_blame.svg', await renderVegaLiteSvg(cutBlamePlotSpec(blame)), 'At each analysis\u2019s most sensitive point: the efficiency of its best region with one cut dropped, relative to all cuts.']);
   for (const [name, svg] of plotSvg) files.push([name, svg]);

@@ -14,12 +14,12 @@ export interface CutBlameBar {
   gainFactor: number;
 }
 
-export function cutBlamePlotSpec(bars: readonly CutBlameBar[], options: { title?: string } = {}): TopLevelSpec {
+export function cutBlamePlotSpec(bars: readonly CutBlameBar[], options: { title?: string; axisTitle?: string } = {}): TopLevelSpec {
   const values = bars.filter((b) => Number.isFinite(b.gainFactor)).map((b) => ({ ...b, label: b.cut.length > 48 ? `${b.cut.slice(0, 45)}...` : b.cut }));
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     title: options.title ?? 'signal gained by dropping one cut',
-    config: { font: 'sans-serif' },
+    config: { font: 'sans-serif', axis: { labelLimit: 320 } },
     data: { values },
     facet: { row: { field: 'analysis', type: 'nominal', title: null, header: { labelAngle: 0, labelAlign: 'left' } } },
     resolve: { scale: { y: 'independent' } },
@@ -29,7 +29,7 @@ export function cutBlamePlotSpec(bars: readonly CutBlameBar[], options: { title?
       encoding: {
         y: { field: 'label', type: 'nominal', sort: '-x', title: null },
         // Bars start at 1 (no gain) on a log axis.
-        x: { field: 'gainFactor', type: 'quantitative', scale: { type: 'log', domainMin: 1 }, title: 'efficiency without the cut / with all cuts' },
+        x: { field: 'gainFactor', type: 'quantitative', scale: { type: 'log', domainMin: 1 }, title: options.axisTitle ?? 'efficiency without the cut / with all cuts' },
         x2: { datum: 1 },
         color: { value: '#4c78a8' },
         tooltip: [{ field: 'cut' }, { field: 'gainFactor', format: '.3g' }],

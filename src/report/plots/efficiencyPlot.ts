@@ -17,7 +17,7 @@ export function efficiencyPlotSpec(points: readonly EfficiencyPoint[], options: 
   const values = points
     .filter((p) => Number.isFinite(p.efficiency))
     .map((p) => ({
-      analysis: p.analysis,
+      analysis: `${p.analysis} (${p.energyTeV} TeV)`,
       energy: `${p.energyTeV} TeV`,
       mass: p.mass,
       efficiency: p.efficiency,
@@ -27,7 +27,8 @@ export function efficiencyPlotSpec(points: readonly EfficiencyPoint[], options: 
   return {
     $schema: 'https://vega.github.io/schema/vega-lite/v6.json',
     title: options.title ?? 'signal efficiency of the best region',
-    config: { font: 'sans-serif', legend: { orient: 'right' } },
+    // Opaque legend symbols (the error bands are translucent).
+    config: { font: 'sans-serif', legend: { orient: 'right', symbolOpacity: 1, labelLimit: 320 } },
     width: 480,
     height: 280,
     data: { values },
@@ -47,8 +48,9 @@ export function efficiencyPlotSpec(points: readonly EfficiencyPoint[], options: 
         encoding: {
           x: { field: 'mass', type: 'quantitative' },
           y: { field: 'efficiency', type: 'quantitative' },
-          color: { field: 'analysis', type: 'nominal' },
-          strokeDash: { field: 'energy', type: 'nominal', title: 'energy' },
+          color: { field: 'analysis', type: 'nominal', title: 'analysis' },
+          // Dashes tell the energies apart; the legend names them in the analysis labels.
+          strokeDash: { field: 'energy', type: 'nominal', legend: null },
         },
       },
     ],
