@@ -44,6 +44,11 @@ export async function buildProgram(): Promise<Command> {
 
 /** Runs the CLI on `argv` (as in `process.argv`) and returns the exit code. */
 export async function main(argv: readonly string[]): Promise<number> {
+  // A reader that stops early (`tamis ... | head`) is not an error.
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code === 'EPIPE') process.exit(0);
+    throw error;
+  });
   const program = await buildProgram();
   for (const command of program.commands) command.exitOverride();
   try {

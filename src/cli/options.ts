@@ -2,6 +2,7 @@
  * Parsing of CLI option values into checked numbers and lists. Every error is
  * a `bad_input` TamisError naming the option, so the CLI prints one clear line.
  */
+import { existsSync } from 'node:fs';
 import { TamisError } from '../errors.js';
 
 /** A finite number, optionally bounded. */
@@ -27,4 +28,10 @@ export function parseListOption(option: string, text: string): string[] {
   const parts = text.split(',').map((p) => p.trim()).filter((p) => p !== '');
   if (parts.length === 0) throw new TamisError('bad_input', `expected a comma-separated list, got "${text}"`, { key: option });
   return parts;
+}
+
+/** An option that takes a count or an event file (`--events`): a file when not a number and it exists or ends like one. */
+export function looksLikeEventFile(value: string): boolean {
+  if (/^\s*[-+0-9.e]+\s*$/i.test(value)) return false;
+  return existsSync(value) || /\.(lhe|lhe\.gz|gz)$/i.test(value);
 }

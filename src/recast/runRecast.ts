@@ -8,11 +8,20 @@ import { readTextFile } from '../io/yamlFile.js';
 import { loadAnalyses } from '../selection/loader.js';
 import type { LimitMethod, UncertaintyModel } from '../stats/index.js';
 import { RECAST_TARGET_RELATIVE_ERROR, recastPoint } from './recastPoint.js';
+import { recastEventFile } from './recastEventFile.js';
+import { TamisError } from '../errors.js';
+import { parseModel } from '../generator/model/loader.js';
+import type { Analysis } from '../selection/analysis.js';
 import type { PointResult } from './types.js';
 import { writeRecastOutputs } from './writeRecastOutputs.js';
 
 export interface RunRecastOptions {
-  modelFile: string;
+  /** Model to generate (or, with `eventFile`, only to name the result). */
+  modelFile?: string;
+  /** Les Houches file to recast instead of generating events. */
+  eventFile?: string;
+  /** Cross section of the event file's sample, pb (default: its init block). */
+  crossSectionPb?: number;
   /** Analysis files or folders. */
   analyses: readonly string[];
   energies?: readonly number[];
@@ -38,9 +47,45 @@ export function defaultWorkers(): number {
 }
 
 export async function runRecast(options: RunRecastOptions): Promise<{ result: PointResult; files: string[] }> {
-  const text = readTextFile(options.modelFile);
   const analyses = loadAnalyses(options.analyses);
-  const result = await recastPoint({
+  const result = options.eventFile !== undefined ? await recastFile(options, options.eventFile, analyses) : await generateAndRecast(options, analyses);
+  const used = analyses.filter((a) => result.analyses.some((o) => o.id === a.id));
+  const files = await writeRecastOutputs(options.outFolder, result, {
+    command: options.command ?? 'tamis recast',
+    modelFile: options.eventFile ?? options.modelFile ?? '',
+    analysisFiles: used.map((a) => a.file),
+    detectorFiles: [...new Set(used.map((a) => a.detectorFile))],
+    settings: {
+      seed: options.seed,
+      events_per_energy: result.eventsPerEnergy,
+      energies_tev: result.energies.map((e) => e.energyTeV),
+      cl: result.cl,
+      ...(options.eventFile === undefined ? { cross_section_precision: options.precision ?? RECAST_TARGET_RELATIVE_ERROR } : { event_file: options.eventFile }),
+      limit_method: options.method ?? 'auto',
+      uncertainty_model: options.uncertaintyModel ?? 'lognormal',
+    },
+  });
+  return { result, files: files.map((f) => resolve(f)) };
+}
+
+async function recastFile(options: RunRecastOptions, eventFile: string, analyses: Analysis[]): Promise<PointResult> {
+  const modelName = options.modelFile !== undefined ? parseModel(readTextFile(options.modelFile), options.modelFile).name : undefined;
+  return recastEventFile({
+    eventFile,
+    analyses,
+    seed: options.seed,
+    ...(modelName ? { modelName } : {}),
+    ...(options.crossSectionPb !== undefined ? { crossSectionPb: options.crossSectionPb } : {}),
+    ...(options.cl !== undefined ? { cl: options.cl } : {}),
+    ...(options.method ? { method: options.method } : {}),
+    ...(options.uncertaintyModel ? { uncertaintyModel: options.uncertaintyModel } : {}),
+  });
+}
+
+async function generateAndRecast(options: RunRecastOptions, analyses: Analysis[]): Promise<PointResult> {
+  if (options.modelFile === undefined) throw new TamisError('bad_input', 'give a model file to generate, or --events FILE.lhe to recast existing events', { key: 'model' });
+  const text = readTextFile(options.modelFile);
+  return recastPoint({
     model: { text, file: options.modelFile },
     analyses,
     ...(options.energies ? { energies: options.energies } : {}),
@@ -53,21 +98,4 @@ export async function runRecast(options: RunRecastOptions): Promise<{ result: Po
     ...(options.uncertaintyModel ? { uncertaintyModel: options.uncertaintyModel } : {}),
     ...(options.onProgress ? { onProgress: options.onProgress } : {}),
   });
-  const used = analyses.filter((a) => result.analyses.some((o) => o.id === a.id));
-  const files = await writeRecastOutputs(options.outFolder, result, {
-    command: options.command ?? 'tamis recast',
-    modelFile: options.modelFile,
-    analysisFiles: used.map((a) => a.file),
-    detectorFiles: [...new Set(used.map((a) => a.detectorFile))],
-    settings: {
-      seed: options.seed,
-      events_per_energy: options.events,
-      energies_tev: result.energies.map((e) => e.energyTeV),
-      cl: result.cl,
-      cross_section_precision: options.precision ?? RECAST_TARGET_RELATIVE_ERROR,
-      limit_method: options.method ?? 'auto',
-      uncertainty_model: options.uncertaintyModel ?? 'lognormal',
-    },
-  });
-  return { result, files: files.map((f) => resolve(f)) };
 }

@@ -87,3 +87,33 @@ describe('tamis recast (end to end)', () => {
     }
   });
 });
+
+describe('tamis recast --events FILE.lhe (end to end)', () => {
+  beforeAll(requireBuild);
+
+  it('recasts the events of a Les Houches file with the cross section of its init block, or the one given', () => {
+    const made = tamis(folder, 'generate', MODEL, '--energy', '8', '--events', '3000', '--seed', '9', '--out', 'sample.lhe');
+    expect(made.status).toBe(0);
+    const sigma = Number(/cross section ([0-9.e+-]+) \+-/.exec(made.stdout)![1]);
+    const run = tamis(folder, 'recast', '--events', 'sample.lhe', '--analyses', join(ROOT, 'analyses'), '--out', 'lhe');
+    expect(run.stderr).toBe('');
+    expect(run.status).toBe(0);
+    expect(run.stdout).toMatch(/3000 events from sample\.lhe/);
+    expect(run.stdout).toMatch(/^three-lepton-8tev +8 /m);
+    expect(run.stdout).not.toMatch(/13tev/);
+    const summary = JSON.parse(readFileSync(join(folder, 'lhe', 'summary.json'), 'utf8'));
+    expect(Math.abs(summary.result.energies[0].sigmaPb / sigma - 1)).toBeLessThan(1e-3); // printed with 4 digits
+    const given = tamis(folder, 'recast', MODEL, '--events', 'sample.lhe', '--cross-section', '0.5', '--analyses', join(ROOT, 'analyses', 'three-lepton-8tev.yaml'), '--out', 'lhe2');
+    expect(given.status).toBe(0);
+    expect(given.stdout).toMatch(/^doublet-benchmark: 8 TeV: 0\.5000 pb/);
+  });
+
+  it('refuses an event file at another energy than every analysis, and a recast with neither model nor events', () => {
+    const wrong = tamis(folder, 'recast', '--events', 'sample.lhe', '--analyses', join(ROOT, 'analyses', 'same-sign-13tev.yaml'), '--out', 'lhe3');
+    expect(wrong.status).toBe(2);
+    expect(wrong.stderr).toMatch(/sample\.lhe: the events are at 8 TeV but the analyses are at 13 TeV/);
+    const nothing = tamis(folder, 'recast', '--analyses', join(ROOT, 'analyses'));
+    expect(nothing.status).toBe(2);
+    expect(nothing.stderr).toMatch(/give a model file to generate, or --events FILE\.lhe/);
+  });
+});
