@@ -29,6 +29,18 @@ export interface LimitSettings {
   pointId: readonly number[];
 }
 
+/** Limit settings with tamis's defaults: 95% CL, `auto` method, log-normal background uncertainty. */
+export function limitSettingsOf(options: { cl?: number; method?: LimitMethod; combinationMethod?: LimitMethod; uncertaintyModel?: UncertaintyModel; seed: number; pointId?: readonly number[] }): LimitSettings {
+  return {
+    cl: options.cl ?? 0.95,
+    method: options.method ?? 'auto',
+    ...(options.combinationMethod === undefined ? {} : { combinationMethod: options.combinationMethod }),
+    uncertaintyModel: options.uncertaintyModel ?? 'lognormal',
+    seed: options.seed,
+    pointId: [...(options.pointId ?? [])],
+  };
+}
+
 export function analysisOutcome(analysis: Analysis, selected: AnalysisResult, crossSectionPb: number, settings: LimitSettings): AnalysisOutcome {
   const groupOf = new Map<string, string>();
   for (const group of analysis.correlationGroups) for (const region of group.regions) groupOf.set(region, group.name);

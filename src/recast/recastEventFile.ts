@@ -15,7 +15,7 @@ import { RandomStream } from '../physics/random.js';
 import type { Analysis } from '../selection/analysis.js';
 import { createSelection } from '../selection/engine.js';
 import type { LimitMethod, UncertaintyModel } from '../stats/index.js';
-import { analysisOutcome } from './analysisOutcome.js';
+import { analysisOutcome, limitSettingsOf } from './analysisOutcome.js';
 import { groupByDetector, STREAM_RECAST_DETECTOR, streamIdOf } from './eventChunks.js';
 import { requirementCosts, requirementVariants } from './requirementCosts.js';
 import { fileSha256 } from '../report/summaryJson.js';
@@ -76,14 +76,7 @@ export async function recastEventFile(options: EventFileRecastOptions): Promise<
     if ((index + 1) % 10_000 === 0) options.onProgress?.(index + 1);
   });
   if (read.events === 0) throw new TamisError('bad_file', 'the file holds no event', { file });
-  const settings = {
-    cl: options.cl ?? 0.95,
-    method: options.method ?? 'auto',
-    ...(options.combinationMethod === undefined ? {} : { combinationMethod: options.combinationMethod }),
-    uncertaintyModel: options.uncertaintyModel ?? 'lognormal',
-    seed: options.seed,
-    pointId: [],
-  };
+  const settings = limitSettingsOf(options);
   const outcomes = groups.flatMap((g) => {
     const results = g.selection.results();
     const variants = new Map((g.variants?.results().analyses ?? []).map((r) => [r.id, r]));

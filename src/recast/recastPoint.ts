@@ -11,6 +11,7 @@ import { parseModel } from '../generator/model/loader.js';
 import type { Analysis } from '../selection/analysis.js';
 import { mergeSelectionResults, type AnalysisResult } from '../selection/results.js';
 import type { LimitMethod, UncertaintyModel } from '../stats/index.js';
+import { limitSettingsOf } from './analysisOutcome.js';
 import { runLimitTask, type LimitTask } from './limitTask.js';
 import { requirementCosts, type RequirementCost } from './requirementCosts.js';
 import { groupByDetector, runChunk, sha256, type ChunkResult, type ChunkTask, type ModelSource } from './eventChunks.js';
@@ -161,14 +162,7 @@ export async function selectPoint(options: RecastOptions): Promise<SelectedPoint
  * are done.
  */
 export async function recastPoint(options: RecastOptions): Promise<PointResult> {
-  const settings = {
-    cl: options.cl ?? 0.95,
-    method: options.method ?? 'auto',
-    ...(options.combinationMethod === undefined ? {} : { combinationMethod: options.combinationMethod }),
-    uncertaintyModel: options.uncertaintyModel ?? 'lognormal',
-    seed: options.seed,
-    pointId: [...(options.pointId ?? [])],
-  };
+  const settings = limitSettingsOf(options);
   const pool = recastPool(options.workers ?? 1);
   try {
     const submitted = submitEnergies(options, pool);
