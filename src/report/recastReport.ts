@@ -87,6 +87,12 @@ function analysisSection(a: AnalysisOutcome, sigmaPb: number): string {
         a.cutCosts.map((c) => [c.kind === 'step' ? `${c.name}: ${c.cut}` : c.cut, c.kind, formatNumber(c.efficiencyWithout, 3), formatNumber(c.gainFactor, 3)]),
       )
     : '<p>No cut costs: no region selects any signal.</p>';
+  const requirements = a.requirementCosts.length
+    ? `<p>What each requirement costs the signal regions as a whole (their efficiency with no condition at all on one variable, in steps and regions, relative to all conditions):</p>\n${htmlTable(
+        [{ header: 'variable' }, { header: 'efficiency without it', alignRight: true }, { header: 'gain factor', alignRight: true }],
+        a.requirementCosts.map((c) => [c.variable, formatNumber(c.efficiencyWithout, 3), formatNumber(c.gainFactor, 3)]),
+      )}`
+    : '';
   const combined = a.combined
     ? `<p>Combination of the ${a.regions.length} disjoint regions: sigma95 observed ${escapeHtml(formatNumber(a.combined.sigma95ObservedPb, 3))} pb, expected ${escapeHtml(formatNumber(a.combined.sigma95ExpectedPb.median, 3))} pb [${escapeHtml(formatNumber(a.combined.sigma95ExpectedPb.minus1, 3))}, ${escapeHtml(formatNumber(a.combined.sigma95ExpectedPb.plus1, 3))}] (±1σ); r = ${escapeHtml(formatNumber(a.combined.rObserved, 3))}.</p>`
     : '<p>No combination: the regions are not declared disjoint.</p>';
@@ -101,7 +107,8 @@ ${regionTable}
 <p>Cut-flow (efficiency relative to all generated events):</p>
 ${stepTable}
 <p>What each cut of the ${a.bestRegion ? `best region ${escapeHtml(a.bestRegion)}` : 'most promising region'} costs (efficiency if only that cut were dropped):</p>
-${costTable}`;
+${costTable}
+${requirements}`;
 }
 
 export interface RecastReportInput {
